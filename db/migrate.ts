@@ -1,0 +1,9 @@
+import { join } from 'node:path';
+import { migrate } from 'drizzle-orm/node-postgres/migrator';
+import type { Database } from '../server/db';
+import { projectRoot } from '../server/project-root';
+
+/** Applies the committed migrations in `db/migrations` that the database has not seen. */
+export async function runMigrations(db: Database): Promise<void> {
+  await migrate(db, { migrationsFolder: join(projectRoot(), 'db', 'migrations') });
+}

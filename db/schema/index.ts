@@ -1,0 +1,5 @@
+export * from './shops';
+export * from './users';
+export * from './invitations';
+export * from './audit-events';
+export * from './sessions';

@@ -1,0 +1,15 @@
+import type { AppConfig } from './config';
+import type { Database } from './db';
+import type { Mailer } from './mail/mailer';
+
+/** What routes and services need, built once at boot (or by a test). */
+export interface AppContext {
+  /** Settings. */
+  config: AppConfig;
+  /** The Drizzle client. */
+  db: Database;
+  /** Outgoing mail. */
+  mailer: Mailer;
+  /** Folder of captured mail when the local mail catcher is in use, else null. */
+  capturedMailDir: string | null;
+}
