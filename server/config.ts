@@ -69,7 +69,9 @@ function resolveSessionSecret(given: string | undefined, dataDir: string): strin
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
   const parsed = envSchema.safeParse(env);
   if (!parsed.success) {
-    const problems = parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`);
+    const problems = parsed.error.issues.map(
+      (issue) => `${issue.path.join('.')}: ${issue.message}`,
+    );
     throw new Error(`Invalid environment:\n  ${problems.join('\n  ')}`);
   }
   const e = parsed.data;

@@ -17,7 +17,9 @@ async function main(): Promise<void> {
     capturedMailDir = join(config.dataDir, 'mail');
     catcher = await startMailCatcher(capturedMailDir);
     smtpUrl = catcher.url;
-    console.log(`[cellsmith] mail is captured locally (${catcher.url}), readable by admins on the Team page`);
+    console.log(
+      `[cellsmith] mail is captured locally (${catcher.url}), readable by admins on the Team page`,
+    );
   }
   const mailer = createSmtpMailer(smtpUrl, config.mailFrom);
   const built = createApp({ config, db, mailer, capturedMailDir }, { pool });

@@ -17,7 +17,8 @@ export function projectRoot(): string {
       if (name === 'cellsmith') return (cached = dir);
     }
     const parent = dirname(dir);
-    if (parent === dir) throw new Error('Cellsmith: cannot find the project root above ' + __dirname);
+    if (parent === dir)
+      throw new Error('Cellsmith: cannot find the project root above ' + __dirname);
     dir = parent;
   }
 }

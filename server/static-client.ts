@@ -27,7 +27,10 @@ export function staticClient(dist: string): Router {
       index: false,
       setHeaders(res, path) {
         const isHashed = /-[A-Z0-9]{8}\.(js|css|woff2?|ttf|svg|png)$/i.test(path);
-        res.setHeader('Cache-Control', isHashed ? 'public, max-age=31536000, immutable' : 'no-cache');
+        res.setHeader(
+          'Cache-Control',
+          isHashed ? 'public, max-age=31536000, immutable' : 'no-cache',
+        );
       },
     }),
   );

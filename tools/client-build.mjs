@@ -3,7 +3,15 @@ import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { ROOT, run, say } from './setup.mjs';
 
-const INPUTS = ['src', 'shared', 'fonts', 'angular.json', 'tsconfig.json', 'tsconfig.app.json', 'package-lock.json'];
+const INPUTS = [
+  'src',
+  'shared',
+  'fonts',
+  'angular.json',
+  'tsconfig.json',
+  'tsconfig.app.json',
+  'package-lock.json',
+];
 
 function newestMtime(path) {
   if (!existsSync(path)) return 0;

@@ -11,12 +11,24 @@ const fonts = join(root, 'fonts');
 
 /** Each entry: [source under node_modules, target under fonts/]. */
 const copies = [
-  ['@fontsource/roboto/files/roboto-latin-400-normal.woff2', 'roboto/roboto-latin-400-normal.woff2'],
-  ['@fontsource/roboto/files/roboto-latin-500-normal.woff2', 'roboto/roboto-latin-500-normal.woff2'],
-  ['@fontsource/roboto/files/roboto-latin-700-normal.woff2', 'roboto/roboto-latin-700-normal.woff2'],
+  [
+    '@fontsource/roboto/files/roboto-latin-400-normal.woff2',
+    'roboto/roboto-latin-400-normal.woff2',
+  ],
+  [
+    '@fontsource/roboto/files/roboto-latin-500-normal.woff2',
+    'roboto/roboto-latin-500-normal.woff2',
+  ],
+  [
+    '@fontsource/roboto/files/roboto-latin-700-normal.woff2',
+    'roboto/roboto-latin-700-normal.woff2',
+  ],
   ['@fontsource/roboto/LICENSE', 'roboto/LICENSE'],
   // The package ships only variable fonts (no static cut); outlined is the one the UI uses.
-  ['material-symbols/material-symbols-outlined.woff2', 'material-symbols/material-symbols-outlined.woff2'],
+  [
+    'material-symbols/material-symbols-outlined.woff2',
+    'material-symbols/material-symbols-outlined.woff2',
+  ],
   ['material-symbols/LICENSE', 'material-symbols/LICENSE'],
 ];
 

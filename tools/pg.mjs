@@ -64,9 +64,14 @@ export function initCluster(bin, dir) {
   }
   say(`creating the database cluster in ${dir}…`);
   check(
-    pgRun(bin, 'initdb', ['-D', dir, '-U', 'postgres', '-A', 'trust', '-E', 'UTF8', '--locale=C', '--no-sync'], {
-      quiet: true,
-    }),
+    pgRun(
+      bin,
+      'initdb',
+      ['-D', dir, '-U', 'postgres', '-A', 'trust', '-E', 'UTF8', '--locale=C', '--no-sync'],
+      {
+        quiet: true,
+      },
+    ),
     'initdb',
   );
   return true;
@@ -90,9 +95,14 @@ export function startCluster(bin, dir, port, extra = []) {
     ...extra.map((setting) => `-c ${setting}`),
   ].join(' ');
   check(
-    pgRun(bin, 'pg_ctl', ['-D', dir, '-l', join(dir, 'postgres.log'), '-w', '-t', '60', '-o', options, 'start'], {
-      quiet: true,
-    }),
+    pgRun(
+      bin,
+      'pg_ctl',
+      ['-D', dir, '-l', join(dir, 'postgres.log'), '-w', '-t', '60', '-o', options, 'start'],
+      {
+        quiet: true,
+      },
+    ),
     `starting PostgreSQL on 127.0.0.1:${port} (see ${join(dir, 'postgres.log')})`,
   );
 }
@@ -100,17 +110,27 @@ export function startCluster(bin, dir, port, extra = []) {
 /** Stops the cluster in `dir` (fast shutdown: open sessions are ended). */
 export function stopCluster(bin, dir) {
   if (!isClusterRunning(bin, dir)) return false;
-  check(pgRun(bin, 'pg_ctl', ['-D', dir, '-m', 'fast', '-w', 'stop'], { quiet: true }), 'stopping PostgreSQL');
+  check(
+    pgRun(bin, 'pg_ctl', ['-D', dir, '-m', 'fast', '-w', 'stop'], { quiet: true }),
+    'stopping PostgreSQL',
+  );
   return true;
 }
 
 /** Creates database `name` on the cluster at `port` unless it exists. */
 export function ensureDatabase(bin, port, name) {
   const psql = (sql) =>
-    spawnSync(join(bin, 'psql'), ['-h', '127.0.0.1', '-p', String(port), '-U', 'postgres', '-d', 'postgres', '-tAc', sql], {
-      encoding: 'utf8',
-    });
-  const found = check(psql(`SELECT 1 FROM pg_database WHERE datname = '${name}'`), 'looking up the database');
+    spawnSync(
+      join(bin, 'psql'),
+      ['-h', '127.0.0.1', '-p', String(port), '-U', 'postgres', '-d', 'postgres', '-tAc', sql],
+      {
+        encoding: 'utf8',
+      },
+    );
+  const found = check(
+    psql(`SELECT 1 FROM pg_database WHERE datname = '${name}'`),
+    'looking up the database',
+  );
   if (found.stdout.trim() === '1') return false;
   check(psql(`CREATE DATABASE "${name}"`), `creating database ${name}`);
   return true;

@@ -95,7 +95,11 @@ async function main() {
   ensureClientBuild();
   if (stopping) return;
 
-  server = spawn('node', ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: 'inherit' });
+  server = spawn('node', ['--import', 'tsx', 'server/index.ts'], {
+    cwd: ROOT,
+    env,
+    stdio: 'inherit',
+  });
   server.on('exit', (code, signal) => {
     if (stopping) return;
     say(`the server stopped (${signal ?? code}); stopping`);

@@ -8,7 +8,14 @@ import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ensureClientBuild } from './client-build.mjs';
-import { databaseUrl, ensureDatabase, ensurePostgres, initCluster, startCluster, stopCluster } from './pg.mjs';
+import {
+  databaseUrl,
+  ensureDatabase,
+  ensurePostgres,
+  initCluster,
+  startCluster,
+  stopCluster,
+} from './pg.mjs';
 import { IS_ROOT, ROOT, ensureDebianPackage, ensureNodeModules, run, say } from './setup.mjs';
 
 const CHROMIUM = '/usr/bin/chromium';
@@ -62,7 +69,11 @@ async function main() {
   try {
     initCluster(bin, clusterDir);
     say(`starting a throwaway PostgreSQL on 127.0.0.1:${pgPort}…`);
-    startCluster(bin, clusterDir, pgPort, ['fsync=off', 'synchronous_commit=off', 'full_page_writes=off']);
+    startCluster(bin, clusterDir, pgPort, [
+      'fsync=off',
+      'synchronous_commit=off',
+      'full_page_writes=off',
+    ]);
     clusterStarted = true;
     ensureDatabase(bin, pgPort, 'cellsmith_test');
     const env = {

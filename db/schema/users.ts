@@ -1,13 +1,5 @@
 import { sql } from 'drizzle-orm';
-import {
-  index,
-  pgEnum,
-  pgTable,
-  text,
-  timestamp,
-  uniqueIndex,
-  uuid,
-} from 'drizzle-orm/pg-core';
+import { index, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { ROLES } from '../../shared/contracts/roles';
 import { shops } from './shops';
 

@@ -18,7 +18,11 @@ export interface SeedReport {
  * Seeds the invented demo shops and accounts. Idempotent: existing shops and users are kept,
  * missing ones are added, and demo accounts get the current demo password back.
  */
-export async function seedDemo(db: Database, password: string, demo: readonly DemoShop[] = DEMO_SHOPS): Promise<SeedReport> {
+export async function seedDemo(
+  db: Database,
+  password: string,
+  demo: readonly DemoShop[] = DEMO_SHOPS,
+): Promise<SeedReport> {
   const report: SeedReport = { shopsCreated: 0, usersCreated: 0, passwordsReset: 0 };
   const hash = await hashPassword(password);
   await db.transaction(async (tx) => {
@@ -40,7 +44,9 @@ export async function seedDemo(db: Database, password: string, demo: readonly De
             .values({ email: member.email, name: member.name, passwordHash: hash })
             .returning();
           if (!created) throw new Error(`seed: user ${member.email} could not be created`);
-          await tx.insert(memberships).values({ userId: created.id, shopId: row.id, roles: member.roles });
+          await tx
+            .insert(memberships)
+            .values({ userId: created.id, shopId: row.id, roles: member.roles });
           report.usersCreated++;
         } else if (!(await verifyPassword(password, existing.passwordHash))) {
           await tx.update(users).set({ passwordHash: hash }).where(eq(users.id, existing.id));

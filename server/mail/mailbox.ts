@@ -5,9 +5,16 @@ import type { CapturedMail } from '../../shared/contracts/team';
 import type { StoredMail } from './mail-catcher';
 
 /** The messages the catcher kept for one shop, newest first (at most `limit`). */
-export async function readCapturedMail(dir: string, shopId: string, limit = 50): Promise<CapturedMail[]> {
+export async function readCapturedMail(
+  dir: string,
+  shopId: string,
+  limit = 50,
+): Promise<CapturedMail[]> {
   if (!existsSync(dir)) return [];
-  const names = (await readdir(dir)).filter((name) => name.endsWith('.json')).sort().reverse();
+  const names = (await readdir(dir))
+    .filter((name) => name.endsWith('.json'))
+    .sort()
+    .reverse();
   const result: CapturedMail[] = [];
   for (const name of names) {
     if (result.length >= limit) break;

@@ -20,12 +20,15 @@ declare global {
 export function createPassport(db: Database): passport.PassportStatic {
   const instance = new passport.Passport() as unknown as passport.PassportStatic;
   instance.use(
-    new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, (email, password, done) => {
-      verifyCredentials(db, email, password).then(
-        (user) => done(null, user ?? false),
-        (err: unknown) => done(err),
-      );
-    }),
+    new LocalStrategy(
+      { usernameField: 'email', passwordField: 'password' },
+      (email, password, done) => {
+        verifyCredentials(db, email, password).then(
+          (user) => done(null, user ?? false),
+          (err: unknown) => done(err),
+        );
+      },
+    ),
   );
   instance.serializeUser((user, done) => done(null, user.id));
   instance.deserializeUser((id: string, done) => {

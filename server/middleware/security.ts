@@ -20,7 +20,11 @@ export function securityHeaders(isHttps: boolean): RequestHandler {
       directives: {
         defaultSrc: ["'self'"],
         scriptSrc: ["'self'"],
-        styleSrc: ["'self'", (_req, res) => `'nonce-${(res as unknown as { locals: { cspNonce: string } }).locals.cspNonce}'`],
+        styleSrc: [
+          "'self'",
+          (_req, res) =>
+            `'nonce-${(res as unknown as { locals: { cspNonce: string } }).locals.cspNonce}'`,
+        ],
         fontSrc: ["'self'"],
         imgSrc: ["'self'", 'data:'],
         connectSrc: ["'self'"],

@@ -12,14 +12,21 @@ export function invitationStatus(row: InvitationRow, now = new Date()): Invitati
 }
 
 /** Inserts an invitation and returns its row. */
-export async function insertInvitation(db: Executor, values: NewInvitation): Promise<InvitationRow> {
+export async function insertInvitation(
+  db: Executor,
+  values: NewInvitation,
+): Promise<InvitationRow> {
   const [row] = await db.insert(invitations).values(values).returning();
   if (!row) throw new Error('insertInvitation: no row returned');
   return row;
 }
 
 /** The shop's invitations, newest first (at most `limit`), with the inviter's name. */
-export async function listInvitations(db: Executor, shopId: string, limit = 100): Promise<Invitation[]> {
+export async function listInvitations(
+  db: Executor,
+  shopId: string,
+  limit = 100,
+): Promise<Invitation[]> {
   const rows = await db
     .select({ invitation: invitations, invitedBy: users.name })
     .from(invitations)
@@ -45,7 +52,11 @@ export function toInvitation(row: InvitationRow, invitedBy: string): Invitation 
 }
 
 /** One invitation of a shop by id, or null. */
-export async function findInvitation(db: Executor, shopId: string, id: string): Promise<InvitationRow | null> {
+export async function findInvitation(
+  db: Executor,
+  shopId: string,
+  id: string,
+): Promise<InvitationRow | null> {
   const rows = await db
     .select()
     .from(invitations)
@@ -81,7 +92,11 @@ export async function findPendingByTokenHash(
 }
 
 /** Revokes every pending invitation of this e-mail in the shop; returns how many. */
-export async function revokePendingForEmail(db: Executor, shopId: string, email: string): Promise<number> {
+export async function revokePendingForEmail(
+  db: Executor,
+  shopId: string,
+  email: string,
+): Promise<number> {
   const rows = await db
     .update(invitations)
     .set({ revokedAt: new Date() })
@@ -98,7 +113,11 @@ export async function revokePendingForEmail(db: Executor, shopId: string, email:
 }
 
 /** Marks an invitation revoked or accepted. */
-export async function closeInvitation(db: Executor, id: string, how: 'revoked' | 'accepted'): Promise<void> {
+export async function closeInvitation(
+  db: Executor,
+  id: string,
+  how: 'revoked' | 'accepted',
+): Promise<void> {
   const now = new Date();
   await db
     .update(invitations)

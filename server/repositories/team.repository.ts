@@ -45,7 +45,11 @@ export async function listMembers(db: Executor, shopId: string): Promise<Member[
 }
 
 /** One member of a shop by user id, or null when there is none in that shop. */
-export async function findMember(db: Executor, shopId: string, userId: string): Promise<Member | null> {
+export async function findMember(
+  db: Executor,
+  shopId: string,
+  userId: string,
+): Promise<Member | null> {
   const rows = await db
     .select(memberColumns)
     .from(memberships)

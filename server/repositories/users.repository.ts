@@ -37,9 +37,16 @@ const sessionColumns = {
 };
 
 /** Finds the user with this e-mail (any case) and their membership, or null. */
-export async function findSignInCandidate(db: Executor, email: string): Promise<SignInCandidate | null> {
+export async function findSignInCandidate(
+  db: Executor,
+  email: string,
+): Promise<SignInCandidate | null> {
   const rows = await db
-    .select({ ...sessionColumns, passwordHash: users.passwordHash, disabledAt: memberships.disabledAt })
+    .select({
+      ...sessionColumns,
+      passwordHash: users.passwordHash,
+      disabledAt: memberships.disabledAt,
+    })
     .from(users)
     .innerJoin(memberships, eq(memberships.userId, users.id))
     .innerJoin(shops, eq(shops.id, memberships.shopId))
@@ -52,7 +59,10 @@ export async function findSignInCandidate(db: Executor, email: string): Promise<
 }
 
 /** Loads an enabled member by user id for a session, or null (gone or disabled). */
-export async function findSessionUser(db: Executor, userId: string): Promise<SessionUserRecord | null> {
+export async function findSessionUser(
+  db: Executor,
+  userId: string,
+): Promise<SessionUserRecord | null> {
   const rows = await db
     .select(sessionColumns)
     .from(users)
@@ -80,9 +90,15 @@ export async function insertMember(
 ): Promise<string> {
   const [user] = await db
     .insert(users)
-    .values({ email: member.email.toLowerCase(), name: member.name, passwordHash: member.passwordHash })
+    .values({
+      email: member.email.toLowerCase(),
+      name: member.name,
+      passwordHash: member.passwordHash,
+    })
     .returning({ id: users.id });
   if (!user) throw new Error('insertMember: no user row returned');
-  await db.insert(memberships).values({ userId: user.id, shopId: member.shopId, roles: member.roles });
+  await db
+    .insert(memberships)
+    .values({ userId: user.id, shopId: member.shopId, roles: member.roles });
   return user.id;
 }

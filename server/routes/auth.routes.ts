@@ -30,8 +30,11 @@ function loginLimiter(ctx: AppContext): RequestHandler {
       return `${ipKeyGenerator(req.ip ?? 'unknown')}|${email}`;
     },
     handler: (req, res, next) => {
-      const resetTime = (req as Request & { rateLimit?: { resetTime?: Date } }).rateLimit?.resetTime;
-      const seconds = resetTime ? Math.max(1, Math.ceil((resetTime.getTime() - Date.now()) / 1000)) : 900;
+      const resetTime = (req as Request & { rateLimit?: { resetTime?: Date } }).rateLimit
+        ?.resetTime;
+      const seconds = resetTime
+        ? Math.max(1, Math.ceil((resetTime.getTime() - Date.now()) / 1000))
+        : 900;
       res.setHeader('Retry-After', String(seconds));
       next(
         new AppError(
@@ -49,20 +52,30 @@ function loginLimiter(ctx: AppContext): RequestHandler {
 export function authRoutes(ctx: AppContext, auth: passport.PassportStatic): Router {
   const router = Router();
 
-  router.post('/auth/login', loginLimiter(ctx), validate({ body: loginRequestSchema }), (req, res, next) => {
-    auth.authenticate('local', { session: false }, (err: unknown, user: SessionUserRecord | false) => {
-      if (err) return next(err);
-      if (!user) return next(new AppError(401, 'not_signed_in', 'Wrong e-mail or password'));
-      // req.logIn regenerates the session: a new id at every sign-in defeats session fixation.
-      req.logIn(user, (loginErr) => {
-        if (loginErr) return next(loginErr);
-        recordAudit(ctx.db, { shopId: user.shopId, actorId: user.id, action: 'auth.signed_in' }).then(
-          () => res.json(toSessionResponse(user)),
-          next,
-        );
-      });
-    })(req, res, next);
-  });
+  router.post(
+    '/auth/login',
+    loginLimiter(ctx),
+    validate({ body: loginRequestSchema }),
+    (req, res, next) => {
+      auth.authenticate(
+        'local',
+        { session: false },
+        (err: unknown, user: SessionUserRecord | false) => {
+          if (err) return next(err);
+          if (!user) return next(new AppError(401, 'not_signed_in', 'Wrong e-mail or password'));
+          // req.logIn regenerates the session: a new id at every sign-in defeats session fixation.
+          req.logIn(user, (loginErr) => {
+            if (loginErr) return next(loginErr);
+            recordAudit(ctx.db, {
+              shopId: user.shopId,
+              actorId: user.id,
+              action: 'auth.signed_in',
+            }).then(() => res.json(toSessionResponse(user)), next);
+          });
+        },
+      )(req, res, next);
+    },
+  );
 
   router.post('/auth/logout', requireSignedIn, (req, res, next) => {
     const user = currentUser(req);
@@ -71,10 +84,11 @@ export function authRoutes(ctx: AppContext, auth: passport.PassportStatic): Rout
       req.session.destroy((destroyErr) => {
         if (destroyErr) return next(destroyErr);
         res.clearCookie(SESSION_COOKIE, { path: '/' });
-        recordAudit(ctx.db, { shopId: user.shopId, actorId: user.id, action: 'auth.signed_out' }).then(
-          () => res.status(204).end(),
-          next,
-        );
+        recordAudit(ctx.db, {
+          shopId: user.shopId,
+          actorId: user.id,
+          action: 'auth.signed_out',
+        }).then(() => res.status(204).end(), next);
       });
     });
   });

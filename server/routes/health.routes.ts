@@ -17,7 +17,10 @@ export function healthRoutes(ctx: AppContext): Router {
     res.json({ ok: true });
   });
   router.get('/meta', (_req, res) => {
-    res.json({ mailCapture: ctx.capturedMailDir !== null, version: process.env['npm_package_version'] ?? '0.1.0' });
+    res.json({
+      mailCapture: ctx.capturedMailDir !== null,
+      version: process.env['npm_package_version'] ?? '0.1.0',
+    });
   });
   return router;
 }

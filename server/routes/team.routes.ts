@@ -12,7 +12,11 @@ import { currentUser, requireRoles } from '../middleware/auth';
 import { validate, validated } from '../middleware/validate';
 import { readCapturedMail } from '../mail/mailbox';
 import { changeMember, listShopMembers } from '../services/team.service';
-import { inviteMember, listShopInvitations, revokeInvitation } from '../services/invitations.service';
+import {
+  inviteMember,
+  listShopInvitations,
+  revokeInvitation,
+} from '../services/invitations.service';
 
 /** The admin's team routes: members, roles, invitations, and captured mail in development. */
 export function teamRoutes(ctx: AppContext): Router {
@@ -38,10 +42,14 @@ export function teamRoutes(ctx: AppContext): Router {
     res.json({ items, total: items.length });
   });
 
-  router.post('/team/invitations', validate({ body: createInvitationRequestSchema }), async (req, res) => {
-    const { body } = validated<CreateInvitationRequest>(res);
-    res.status(201).json(await inviteMember(ctx, currentUser(req), body));
-  });
+  router.post(
+    '/team/invitations',
+    validate({ body: createInvitationRequestSchema }),
+    async (req, res) => {
+      const { body } = validated<CreateInvitationRequest>(res);
+      res.status(201).json(await inviteMember(ctx, currentUser(req), body));
+    },
+  );
 
   router.delete('/team/invitations/:id', validate({ params: idParamSchema }), async (req, res) => {
     const { params } = validated<unknown, unknown, { id: string }>(res);
@@ -51,7 +59,11 @@ export function teamRoutes(ctx: AppContext): Router {
 
   router.get('/dev/mail', async (req, res) => {
     if (!ctx.capturedMailDir) {
-      throw new AppError(404, 'not_found', 'Mail is sent through a real SMTP server; nothing is captured');
+      throw new AppError(
+        404,
+        'not_found',
+        'Mail is sent through a real SMTP server; nothing is captured',
+      );
     }
     const items = await readCapturedMail(ctx.capturedMailDir, currentUser(req).shopId);
     res.json({ items, total: items.length });

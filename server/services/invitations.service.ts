@@ -20,7 +20,11 @@ import {
   toInvitation,
 } from '../repositories/invitations.repository';
 import { findMember } from '../repositories/team.repository';
-import { insertMember, isEmailTaken, type SessionUserRecord } from '../repositories/users.repository';
+import {
+  insertMember,
+  isEmailTaken,
+  type SessionUserRecord,
+} from '../repositories/users.repository';
 import { hashPassword } from './passwords';
 
 /** How long an invitation stays valid. */
@@ -32,7 +36,10 @@ export function hashToken(token: string): string {
 }
 
 /** The shop's invitations, newest first. */
-export function listShopInvitations(ctx: AppContext, actor: SessionUserRecord): Promise<Invitation[]> {
+export function listShopInvitations(
+  ctx: AppContext,
+  actor: SessionUserRecord,
+): Promise<Invitation[]> {
   return listInvitations(ctx.db, actor.shopId);
 }
 
@@ -89,14 +96,22 @@ export async function inviteMember(
       });
     } catch (err) {
       console.error('[cellsmith] sending an invitation failed:', err);
-      throw new AppError(502, 'internal', 'The invitation e-mail could not be sent; nothing was saved');
+      throw new AppError(
+        502,
+        'internal',
+        'The invitation e-mail could not be sent; nothing was saved',
+      );
     }
     return toInvitation(row, actor.name);
   });
 }
 
 /** Revokes a pending invitation of the actor's shop. */
-export async function revokeInvitation(ctx: AppContext, actor: SessionUserRecord, id: string): Promise<void> {
+export async function revokeInvitation(
+  ctx: AppContext,
+  actor: SessionUserRecord,
+  id: string,
+): Promise<void> {
   const row = await findInvitation(ctx.db, actor.shopId, id);
   if (!row) throw notFound('Invitation');
   const status = invitationStatus(row);
@@ -112,7 +127,10 @@ export async function revokeInvitation(ctx: AppContext, actor: SessionUserRecord
 }
 
 /** What the invited person sees before accepting; 404 once used, revoked or expired. */
-export async function previewInvitation(ctx: AppContext, token: string): Promise<InvitationPreview> {
+export async function previewInvitation(
+  ctx: AppContext,
+  token: string,
+): Promise<InvitationPreview> {
   const found = await findPendingByTokenHash(ctx.db, hashToken(token));
   if (!found) throw notFound('Invitation');
   const { invitation, shopName } = found;

@@ -7,8 +7,12 @@ const MAX_MEM = 64 * 1024 * 1024;
 
 function derive(password: string, salt: Buffer, options: ScryptOptions): Promise<Buffer> {
   return new Promise((resolvePromise, reject) => {
-    scrypt(password.normalize('NFKC'), salt, KEY_LENGTH, { ...options, maxmem: MAX_MEM }, (err, key) =>
-      err ? reject(err) : resolvePromise(key),
+    scrypt(
+      password.normalize('NFKC'),
+      salt,
+      KEY_LENGTH,
+      { ...options, maxmem: MAX_MEM },
+      (err, key) => (err ? reject(err) : resolvePromise(key)),
     );
   });
 }
@@ -17,7 +21,9 @@ function derive(password: string, salt: Buffer, options: ScryptOptions): Promise
 export async function hashPassword(password: string): Promise<string> {
   const salt = randomBytes(16);
   const key = await derive(password, salt, COST);
-  return ['scrypt', COST.N, COST.r, COST.p, salt.toString('base64'), key.toString('base64')].join('$');
+  return ['scrypt', COST.N, COST.r, COST.p, salt.toString('base64'), key.toString('base64')].join(
+    '$',
+  );
 }
 
 /** Whether `password` matches a hash made by `hashPassword` (constant-time comparison). */

@@ -6,8 +6,14 @@ describe('areasFor', () => {
     [['tuner'], ['vehicles', 'logs', 'tables', 'plans', 'reviews']],
     [['operator'], ['vehicles', 'logs', 'plans']],
     [['reviewer'], ['vehicles', 'logs', 'tables', 'reviews']],
-    [['tuner', 'reviewer'], ['vehicles', 'logs', 'tables', 'plans', 'reviews']],
-    [['admin', 'operator'], ['vehicles', 'logs', 'plans', 'team']],
+    [
+      ['tuner', 'reviewer'],
+      ['vehicles', 'logs', 'tables', 'plans', 'reviews'],
+    ],
+    [
+      ['admin', 'operator'],
+      ['vehicles', 'logs', 'plans', 'team'],
+    ],
     [[], []],
   ] as const)('roles %j see %j in navigation order', (roles, expected) => {
     expect(areasFor(roles)).toEqual(expected);

@@ -25,11 +25,15 @@ describe('contracts', () => {
   it('needs roles or disabled in a member update, and nothing else', () => {
     expect(updateMemberRequestSchema.safeParse({ disabled: true }).success).toBe(true);
     expect(updateMemberRequestSchema.safeParse({}).success).toBe(false);
-    expect(updateMemberRequestSchema.safeParse({ roles: ['admin'], email: 'x@y.z' }).success).toBe(false);
+    expect(updateMemberRequestSchema.safeParse({ roles: ['admin'], email: 'x@y.z' }).success).toBe(
+      false,
+    );
   });
 
   it('needs an e-mail and roles in an invitation', () => {
-    expect(createInvitationRequestSchema.safeParse({ email: 'a@b.test', roles: ['operator'] }).success).toBe(true);
+    expect(
+      createInvitationRequestSchema.safeParse({ email: 'a@b.test', roles: ['operator'] }).success,
+    ).toBe(true);
     expect(createInvitationRequestSchema.safeParse({ email: 'a@b.test' }).success).toBe(false);
   });
 

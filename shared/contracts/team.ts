@@ -78,7 +78,10 @@ export const tokenParamSchema = z.object({
 
 /** Body of `POST /api/invitations/:token/accept`. */
 export const acceptInvitationRequestSchema = z
-  .object({ name: z.string().trim().min(1, 'name is required').max(120), password: newPasswordSchema })
+  .object({
+    name: z.string().trim().min(1, 'name is required').max(120),
+    password: newPasswordSchema,
+  })
   .strict();
 
 /** Body of `POST /api/invitations/:token/accept`. */

@@ -25,7 +25,10 @@ describe('auth routes', () => {
   describe('POST /api/auth/login', () => {
     it('When the password is right, then it answers the user with roles and shop', async () => {
       const client = await new ApiClient(t.app).prime();
-      const res = await client.post('/api/auth/login', { email: shop.emails.tuner, password: TEST_PASSWORD });
+      const res = await client.post('/api/auth/login', {
+        email: shop.emails.tuner,
+        password: TEST_PASSWORD,
+      });
       expect(res.status).toBe(200);
       expect(res.body.user).toMatchObject({
         id: shop.userIds[shop.emails.tuner],
@@ -51,14 +54,22 @@ describe('auth routes', () => {
 
     it('When the password is wrong, then 401 in the error shape', async () => {
       const client = await new ApiClient(t.app).prime();
-      const res = await client.post('/api/auth/login', { email: shop.emails.tuner, password: 'nope-nope' });
+      const res = await client.post('/api/auth/login', {
+        email: shop.emails.tuner,
+        password: 'nope-nope',
+      });
       expect(res.status).toBe(401);
-      expect(res.body).toEqual({ error: { code: 'not_signed_in', message: 'Wrong e-mail or password' } });
+      expect(res.body).toEqual({
+        error: { code: 'not_signed_in', message: 'Wrong e-mail or password' },
+      });
     });
 
     it('When the account is unknown, then the same 401', async () => {
       const client = await new ApiClient(t.app).prime();
-      const res = await client.post('/api/auth/login', { email: 'nobody@shop.test', password: 'whatever1' });
+      const res = await client.post('/api/auth/login', {
+        email: 'nobody@shop.test',
+        password: 'whatever1',
+      });
       expect(res.status).toBe(401);
       expect(res.body.error.message).toBe('Wrong e-mail or password');
     });
@@ -113,7 +124,11 @@ describe('auth routes', () => {
       const client = await signedIn(t.app, shop.emails.reviewer, TEST_PASSWORD);
       const res = await client.get('/api/auth/me');
       expect(res.status).toBe(200);
-      expect(res.body.user).toMatchObject({ email: shop.emails.reviewer, roles: ['reviewer'], shopName: shop.name });
+      expect(res.body.user).toMatchObject({
+        email: shop.emails.reviewer,
+        roles: ['reviewer'],
+        shopName: shop.name,
+      });
     });
   });
 
@@ -122,7 +137,10 @@ describe('auth routes', () => {
       const client = await signedIn(t.app, shop.emails.reviewer, TEST_PASSWORD);
       const me = await client.get('/api/auth/me');
       expect(me.status).toBe(200);
-      const sid = cookieFrom(await client.signIn(shop.emails.reviewer, TEST_PASSWORD), 'cellsmith.sid');
+      const sid = cookieFrom(
+        await client.signIn(shop.emails.reviewer, TEST_PASSWORD),
+        'cellsmith.sid',
+      );
       const res = await client.post('/api/auth/logout');
       expect(res.status).toBe(204);
       expect((await client.get('/api/auth/me')).status).toBe(401);

@@ -49,7 +49,9 @@ describe('security', () => {
       const res = await admin.agent.patch(`/api/team/members/${target}`).send({ roles: ['tuner'] });
       expect(res.status).toBe(403);
       const members = await admin.get('/api/team/members');
-      const operator = (members.body.items as { id: string; roles: string[] }[]).find((m) => m.id === target);
+      const operator = (members.body.items as { id: string; roles: string[] }[]).find(
+        (m) => m.id === target,
+      );
       expect(operator?.roles).toEqual(['operator']);
     });
   });
@@ -58,29 +60,47 @@ describe('security', () => {
     it('When 10 sign-ins failed for one account and address, then the 11th gets 429 with Retry-After', async () => {
       const client = await new ApiClient(t.app).prime();
       for (let i = 0; i < 10; i++) {
-        const res = await client.post('/api/auth/login', { email: shop.emails.reviewer, password: `wrong-${i}` });
+        const res = await client.post('/api/auth/login', {
+          email: shop.emails.reviewer,
+          password: `wrong-${i}`,
+        });
         expect(res.status).toBe(401);
       }
-      const blocked = await client.post('/api/auth/login', { email: shop.emails.reviewer, password: TEST_PASSWORD });
+      const blocked = await client.post('/api/auth/login', {
+        email: shop.emails.reviewer,
+        password: TEST_PASSWORD,
+      });
       expect(blocked.status).toBe(429);
       expect(blocked.body.error.code).toBe('too_many_requests');
       expect(Number(blocked.headers['retry-after'])).toBeGreaterThan(0);
       expect(Number(blocked.headers['retry-after'])).toBeLessThanOrEqual(15 * 60);
       // Another account from the same address is not affected.
-      const other = await client.post('/api/auth/login', { email: shop.emails.operator, password: TEST_PASSWORD });
+      const other = await client.post('/api/auth/login', {
+        email: shop.emails.operator,
+        password: TEST_PASSWORD,
+      });
       expect(other.status).toBe(200);
     });
 
     it('When sign-ins succeed, then they do not count toward the limit', async () => {
       const client = await new ApiClient(t.app).prime();
       for (let i = 0; i < 15; i++) {
-        const res = await client.post('/api/auth/login', { email: shop.emails.tuner, password: TEST_PASSWORD });
+        const res = await client.post('/api/auth/login', {
+          email: shop.emails.tuner,
+          password: TEST_PASSWORD,
+        });
         expect(res.status).toBe(200);
       }
       for (let i = 0; i < 9; i++) {
-        await client.post('/api/auth/login', { email: shop.emails.tuner, password: 'wrong-password' });
+        await client.post('/api/auth/login', {
+          email: shop.emails.tuner,
+          password: 'wrong-password',
+        });
       }
-      const res = await client.post('/api/auth/login', { email: shop.emails.tuner, password: TEST_PASSWORD });
+      const res = await client.post('/api/auth/login', {
+        email: shop.emails.tuner,
+        password: TEST_PASSWORD,
+      });
       expect(res.status).toBe(200);
     });
   });
@@ -104,7 +124,9 @@ describe('security', () => {
 
     it('When the XSRF cookie is set, then scripts can read it but it stays on our site', async () => {
       const res = await request(t.app).get('/api/health');
-      const line = (res.headers['set-cookie'] as unknown as string[]).find((c) => c.startsWith('XSRF-TOKEN='));
+      const line = (res.headers['set-cookie'] as unknown as string[]).find((c) =>
+        c.startsWith('XSRF-TOKEN='),
+      );
       expect(line).toMatch(/SameSite=Strict/i);
       expect(line).not.toMatch(/HttpOnly/i);
       expect(cookieFrom(res, 'XSRF-TOKEN')).toBeTruthy();

@@ -46,7 +46,10 @@ describe('team routes', () => {
 
     it('When a tuner invites someone, then 403 and no mail goes out', async () => {
       const client = await signedIn(t.app, shop.emails.tuner, TEST_PASSWORD);
-      const res = await client.post('/api/team/invitations', { email: 'sneaky@shop.test', roles: ['admin'] });
+      const res = await client.post('/api/team/invitations', {
+        email: 'sneaky@shop.test',
+        roles: ['admin'],
+      });
       expect(res.status).toBe(403);
     });
 
@@ -71,7 +74,9 @@ describe('team routes', () => {
       const res = await admin.patch(`/api/team/members/${id}`, { roles: ['tuner', 'reviewer'] });
       expect(res.status).toBe(200);
       expect(res.body).toMatchObject({ id, roles: ['tuner', 'reviewer'], disabled: false });
-      const me = await (await signedIn(t.app, shop.emails.reviewer, TEST_PASSWORD)).get('/api/auth/me');
+      const me = await (
+        await signedIn(t.app, shop.emails.reviewer, TEST_PASSWORD)
+      ).get('/api/auth/me');
       expect(me.body.user.roles).toEqual(['tuner', 'reviewer']);
     });
 
@@ -91,27 +96,45 @@ describe('team routes', () => {
       expect((await admin.patch(`/api/team/members/${id}`, { roles: ['pilot'] })).status).toBe(400);
       expect((await admin.patch(`/api/team/members/${id}`, { roles: [] })).status).toBe(400);
       expect((await admin.patch(`/api/team/members/${id}`, {})).status).toBe(400);
-      expect((await admin.patch('/api/team/members/not-a-uuid', { roles: ['tuner'] })).status).toBe(400);
+      expect((await admin.patch('/api/team/members/not-a-uuid', { roles: ['tuner'] })).status).toBe(
+        400,
+      );
     });
 
     it('When an admin removes their own admin role or disables themselves, then 409', async () => {
       const self = shop.userIds[shop.emails.admin];
-      expect((await admin.patch(`/api/team/members/${self}`, { roles: ['tuner'] })).status).toBe(409);
+      expect((await admin.patch(`/api/team/members/${self}`, { roles: ['tuner'] })).status).toBe(
+        409,
+      );
       expect((await admin.patch(`/api/team/members/${self}`, { disabled: true })).status).toBe(409);
     });
 
     it('When a member is disabled, then their session ends and they cannot sign in until enabled', async () => {
       const id = shop.userIds[shop.emails.operator];
       const operator = await signedIn(t.app, shop.emails.operator, TEST_PASSWORD);
-      expect((await admin.patch(`/api/team/members/${id}`, { disabled: true })).body.disabled).toBe(true);
+      expect((await admin.patch(`/api/team/members/${id}`, { disabled: true })).body.disabled).toBe(
+        true,
+      );
       expect((await operator.get('/api/auth/me')).status).toBe(401);
       const again = await new ApiClient(t.app).prime();
       expect(
-        (await again.post('/api/auth/login', { email: shop.emails.operator, password: TEST_PASSWORD })).status,
+        (
+          await again.post('/api/auth/login', {
+            email: shop.emails.operator,
+            password: TEST_PASSWORD,
+          })
+        ).status,
       ).toBe(401);
-      expect((await admin.patch(`/api/team/members/${id}`, { disabled: false })).body.disabled).toBe(false);
       expect(
-        (await again.post('/api/auth/login', { email: shop.emails.operator, password: TEST_PASSWORD })).status,
+        (await admin.patch(`/api/team/members/${id}`, { disabled: false })).body.disabled,
+      ).toBe(false);
+      expect(
+        (
+          await again.post('/api/auth/login', {
+            email: shop.emails.operator,
+            password: TEST_PASSWORD,
+          })
+        ).status,
       ).toBe(200);
     });
   });
@@ -119,9 +142,17 @@ describe('team routes', () => {
   describe('invitations', () => {
     it('When an admin invites, then mail is captured and the invitee can accept and sign in', async () => {
       const email = `new.${Date.now()}@shop.test`;
-      const created = await admin.post('/api/team/invitations', { email, name: 'Nell Newcombe', roles: ['operator'] });
+      const created = await admin.post('/api/team/invitations', {
+        email,
+        name: 'Nell Newcombe',
+        roles: ['operator'],
+      });
       expect(created.status).toBe(201);
-      expect(created.body as Invitation).toMatchObject({ email, roles: ['operator'], status: 'pending' });
+      expect(created.body as Invitation).toMatchObject({
+        email,
+        roles: ['operator'],
+        status: 'pending',
+      });
 
       const mail = await admin.get('/api/dev/mail');
       expect(mail.status).toBe(200);
@@ -134,7 +165,10 @@ describe('team routes', () => {
       expect(preview.body).toMatchObject({ email, shopName: shop.name, roles: ['operator'] });
 
       const visitor = await new ApiClient(t.app).prime();
-      const weak = await visitor.post(`/api/invitations/${token}/accept`, { name: 'Nell', password: 'short' });
+      const weak = await visitor.post(`/api/invitations/${token}/accept`, {
+        name: 'Nell',
+        password: 'short',
+      });
       expect(weak.status).toBe(400);
       const accepted = await visitor.post(`/api/invitations/${token}/accept`, {
         name: 'Nell Newcombe',
@@ -159,7 +193,10 @@ describe('team routes', () => {
     });
 
     it('When the e-mail already has an account, then 409', async () => {
-      const res = await admin.post('/api/team/invitations', { email: otherShop.emails.tuner, roles: ['tuner'] });
+      const res = await admin.post('/api/team/invitations', {
+        email: otherShop.emails.tuner,
+        roles: ['tuner'],
+      });
       expect(res.status).toBe(409);
     });
 
@@ -179,14 +216,19 @@ describe('team routes', () => {
       expect(created.status).toBe(201);
       expect((await admin.delete(`/api/team/invitations/${created.body.id}`)).status).toBe(404);
       const theirs = await otherAdmin.get('/api/team/invitations');
-      expect((theirs.body.items as Invitation[]).find((i) => i.id === created.body.id)?.status).toBe('pending');
+      expect(
+        (theirs.body.items as Invitation[]).find((i) => i.id === created.body.id)?.status,
+      ).toBe('pending');
       // Captured mail is per shop too.
       const ours = await admin.get('/api/dev/mail');
       expect((ours.body.items as CapturedMail[]).some((m) => m.to.includes(email))).toBe(false);
     });
 
     it('When a token is unknown or malformed, then 404 or 400', async () => {
-      expect((await request(t.app).get('/api/invitations/AAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAA')).status).toBe(404);
+      expect(
+        (await request(t.app).get('/api/invitations/AAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAA'))
+          .status,
+      ).toBe(404);
       expect((await request(t.app).get('/api/invitations/bad!')).status).toBe(400);
     });
   });

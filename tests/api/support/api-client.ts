@@ -54,7 +54,8 @@ export class ApiClient {
   async signIn(email: string, password: string): Promise<request.Response> {
     if (!this.xsrf) await this.prime();
     const res = await this.post('/api/auth/login', { email, password });
-    if (res.status !== 200) throw new Error(`sign-in of ${email} answered ${res.status}: ${res.text}`);
+    if (res.status !== 200)
+      throw new Error(`sign-in of ${email} answered ${res.status}: ${res.text}`);
     return res;
   }
 }

@@ -25,7 +25,8 @@ export interface TestApp {
 /** Builds a test app; `env` overrides settings (e.g. the sign-in rate limit). */
 export async function startTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const databaseUrl = process.env['DATABASE_URL'];
-  if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the API tests through `npm test`');
+  if (!databaseUrl)
+    throw new Error('DATABASE_URL is not set: run the API tests through `npm test`');
   const dir = mkdtempSync(join(tmpdir(), 'cellsmith-api-'));
   const config = loadConfig({
     NODE_ENV: 'test',
@@ -39,7 +40,10 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
   const mailDir = join(dir, 'mail');
   const catcher: MailCatcher = await startMailCatcher(mailDir);
   const mailer: Mailer = createSmtpMailer(catcher.url, config.mailFrom);
-  const built = createApp({ config, db, mailer, capturedMailDir: mailDir }, { pool, serveClient: false });
+  const built = createApp(
+    { config, db, mailer, capturedMailDir: mailDir },
+    { pool, serveClient: false },
+  );
   return {
     app: built.app,
     db,

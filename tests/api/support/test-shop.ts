@@ -24,13 +24,19 @@ export interface TestShop {
 export async function createTestShop(db: Database, label: string): Promise<TestShop> {
   const tag = `${label}-${randomBytes(4).toString('hex')}`;
   const roles: Role[] = ['admin', 'tuner', 'operator', 'reviewer'];
-  const emails = Object.fromEntries(roles.map((role) => [role, `${role}.${tag}@shop.test`])) as TestShop['emails'];
+  const emails = Object.fromEntries(
+    roles.map((role) => [role, `${role}.${tag}@shop.test`]),
+  ) as TestShop['emails'];
   const name = `Test shop ${tag}`;
   await seedDemo(db, TEST_PASSWORD, [
     {
       slug: tag,
       name,
-      members: roles.map((role) => ({ email: emails[role], name: `${role} of ${tag}`, roles: [role] })),
+      members: roles.map((role) => ({
+        email: emails[role],
+        name: `${role} of ${tag}`,
+        roles: [role],
+      })),
     },
   ]);
   const [shop] = await db.select().from(shops).where(eq(shops.slug, tag));
