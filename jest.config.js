@@ -42,7 +42,7 @@ module.exports = {
       testMatch: ['**/*.spec.ts'],
       moduleNameMapper: aliases,
       transform: nodeTransform,
-      testTimeout: 30000,
+      setupFilesAfterEnv: ['<rootDir>/tests/api/support/jest-setup.ts'],
     },
     {
       displayName: 'web',
@@ -61,7 +61,7 @@ module.exports = {
       testMatch: ['**/*.e2e.ts'],
       moduleNameMapper: aliases,
       transform: nodeTransform,
-      testTimeout: 120000,
+      setupFilesAfterEnv: ['<rootDir>/tests/e2e/support/jest-setup.ts'],
     },
   ],
 };

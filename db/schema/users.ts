@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm';
 import { index, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
-import { ROLES } from '../../shared/contracts/roles';
+import { ROLES } from '../../shared/contracts/constants';
 import { shops } from './shops';
 
 /** The roles a member may hold. */

@@ -1,5 +1,8 @@
 import { z } from 'zod';
+import { MIN_PASSWORD_LENGTH } from './constants';
 import { roleSchema } from './roles';
+
+export { MIN_PASSWORD_LENGTH } from './constants';
 
 /** Body of `POST /api/auth/login`. */
 export const loginRequestSchema = z.object({
@@ -28,9 +31,6 @@ export const sessionResponseSchema = z.object({ user: sessionUserSchema });
 
 /** Answer of `POST /api/auth/login` and `GET /api/auth/me`. */
 export type SessionResponse = z.infer<typeof sessionResponseSchema>;
-
-/** The shortest password the product accepts. */
-export const MIN_PASSWORD_LENGTH = 10;
 
 /** A new password chosen by a person (invitation acceptance). */
 export const newPasswordSchema = z

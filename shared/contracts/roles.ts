@@ -1,10 +1,7 @@
 import { z } from 'zod';
+import { ROLES } from './constants';
 
-/** The roles a shop member can hold; a member may hold several. */
-export const ROLES = ['admin', 'tuner', 'operator', 'reviewer'] as const;
-
-/** One role of a shop member. */
-export type Role = (typeof ROLES)[number];
+export { ROLES, type Role } from './constants';
 
 /** Zod schema of one role. */
 export const roleSchema = z.enum(ROLES);

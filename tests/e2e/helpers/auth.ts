@@ -21,9 +21,8 @@ export async function signOutThroughMenu(page: Page): Promise<void> {
   await page.getByRole('button', { name: 'Sign in' }).waitFor();
 }
 
-/** The texts of the side navigation's links, in order. */
+/** The accessible names of the side navigation's links, in order (icons are aria-hidden). */
 export async function navigationLinks(page: Page): Promise<string[]> {
-  const nav = page.getByRole('navigation');
-  const texts = await nav.getByRole('link').allInnerTexts();
-  return texts.map((t) => t.replace(/\s+/g, ' ').trim());
+  const snapshot = await page.getByRole('navigation').ariaSnapshot();
+  return [...snapshot.matchAll(/- link "([^"]+)"/g)].map((match) => match[1] ?? '');
 }

@@ -1,0 +1,12 @@
+import type { Routes } from '@angular/router';
+
+/** Routes of the logs area, lazy-loaded below `/logs`. */
+const logsRoutes: Routes = [
+  {
+    path: '',
+    title: 'Logs · Cellsmith',
+    loadComponent: () => import('./logs-page'),
+  },
+];
+
+export default logsRoutes;
