@@ -68,6 +68,12 @@ function shutdown(signal) {
 async function main() {
   process.on('SIGINT', () => shutdown('SIGINT'));
   process.on('SIGTERM', () => shutdown('SIGTERM'));
+  process.on('SIGHUP', () => shutdown('SIGHUP'));
+  // If whoever started us dies without a signal reaching us, do not leave things running.
+  const parent = process.ppid;
+  setInterval(() => {
+    if (process.ppid !== parent) shutdown('parent process gone');
+  }, 1000).unref();
 
   ensureNodeModules();
   bin = ensurePostgres();
