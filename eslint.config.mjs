@@ -86,6 +86,8 @@ export default tseslint.config(
         module: 'writable',
         fetch: 'readonly',
         setTimeout: 'readonly',
+        setInterval: 'readonly',
+        clearInterval: 'readonly',
         URL: 'readonly',
         Buffer: 'readonly',
         __dirname: 'readonly',
