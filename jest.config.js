@@ -30,7 +30,7 @@ module.exports = {
     {
       displayName: 'shared',
       testEnvironment: 'node',
-      roots: ['<rootDir>/shared'],
+      roots: ['<rootDir>/shared', '<rootDir>/tests/reference'],
       testMatch: ['**/*.spec.ts'],
       moduleNameMapper: aliases,
       transform: nodeTransform,
