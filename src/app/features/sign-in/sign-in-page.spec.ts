@@ -10,6 +10,27 @@ import { fillField, noAnimations } from '../../../testing/harness-helpers';
 import { Session } from '../../core/auth/session';
 import { SignInPage } from './sign-in-page';
 
+/** Answers the session check the page starts with: `user` signed in, or nobody (401). */
+async function answerSessionCheck(
+  http: HttpTestingController,
+  fixture: ComponentFixture<SignInPage>,
+  user: SessionUser | null,
+): Promise<void> {
+  const request = http.expectOne('/api/auth/me');
+  if (user === null) {
+    request.flush(
+      { error: { code: 'not_signed_in', message: 'Sign in first' } },
+      { status: 401, statusText: 'Unauthorized' },
+    );
+  } else {
+    request.flush({ user });
+  }
+  // The page reacts to this answer in a promise callback, which whenStable alone does not wait
+  // for; by the time whenLoaded settles here, the page's own callback has run.
+  await TestBed.inject(Session).whenLoaded();
+  await fixture.whenStable();
+}
+
 const USER: SessionUser = {
   id: 'u1',
   email: 'tuner@example.test',
@@ -35,6 +56,7 @@ describe('SignInPage', () => {
     fixture.componentRef.setInput('returnUrl', '/plans');
     loader = TestbedHarnessEnvironment.loader(fixture);
     await fixture.whenStable();
+    await answerSessionCheck(http, fixture, null);
   });
 
   afterEach(() => http.verify());
@@ -102,14 +124,63 @@ describe('SignInPage', () => {
   });
 });
 
-describe('SignInPage with an email query parameter', () => {
-  it('pre-fills the e-mail field', async () => {
+describe('SignInPage before the form is shown', () => {
+  let http: HttpTestingController;
+  let navigateByUrl: jest.SpyInstance;
+
+  beforeEach(() => {
     TestBed.configureTestingModule({
       providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), noAnimations],
     });
+    http = TestBed.inject(HttpTestingController);
+    navigateByUrl = jest.spyOn(TestBed.inject(Router), 'navigateByUrl').mockResolvedValue(true);
+  });
+
+  afterEach(() => http.verify());
+
+  function textOf(fixture: ComponentFixture<SignInPage>): string {
+    return (fixture.nativeElement as HTMLElement).textContent ?? '';
+  }
+
+  it('when someone is already signed in, then it goes to the return URL without the form', async () => {
+    const fixture = TestBed.createComponent(SignInPage);
+    fixture.componentRef.setInput('returnUrl', '/plans');
+    await fixture.whenStable();
+    expect(fixture.nativeElement.querySelector('form')).toBeNull();
+
+    await answerSessionCheck(http, fixture, USER);
+
+    expect(navigateByUrl).toHaveBeenCalledWith('/plans', { replaceUrl: true });
+    expect(fixture.nativeElement.querySelector('form')).toBeNull();
+  });
+
+  it('when someone is already signed in and the return URL is foreign, then it goes to /', async () => {
+    const fixture = TestBed.createComponent(SignInPage);
+    fixture.componentRef.setInput('returnUrl', 'https://evil.example/');
+    await fixture.whenStable();
+
+    await answerSessionCheck(http, fixture, USER);
+
+    expect(navigateByUrl).toHaveBeenCalledWith('/', { replaceUrl: true });
+  });
+
+  it('when nobody is signed in, then it shows the form and stays', async () => {
+    const fixture = TestBed.createComponent(SignInPage);
+    await fixture.whenStable();
+    expect(textOf(fixture)).toContain('Checking whether you are signed in');
+
+    await answerSessionCheck(http, fixture, null);
+
+    expect(fixture.nativeElement.querySelector('form')).not.toBeNull();
+    expect(textOf(fixture)).not.toContain('Checking whether you are signed in');
+    expect(navigateByUrl).not.toHaveBeenCalled();
+  });
+
+  it('pre-fills the e-mail field from the email query parameter', async () => {
     const fixture = TestBed.createComponent(SignInPage);
     fixture.componentRef.setInput('email', 'new@example.test');
     await fixture.whenStable();
+    await answerSessionCheck(http, fixture, null);
 
     const input: HTMLInputElement = fixture.nativeElement.querySelector('input[type="email"]');
     expect(input.value).toBe('new@example.test');

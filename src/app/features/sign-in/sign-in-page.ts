@@ -58,8 +58,15 @@ export class SignInPage implements OnInit {
   /** Whether a sign-in request is on its way. */
   protected readonly isSubmitting = signal(false);
 
+  /**
+   * Whether the first session check found nobody signed in. Until then the form stays hidden, so
+   * a signed-in user is sent on without the form flashing up first.
+   */
+  protected readonly needsSignIn = signal(false);
+
   ngOnInit(): void {
     this.prefillEmail();
+    void this.leaveIfSignedIn();
   }
 
   /** Sends the credentials; on success goes to the return URL, else shows why not. */
@@ -84,6 +91,19 @@ export class SignInPage implements OnInit {
           this.errorMessage.set(this.describeFailure(error));
         },
       });
+  }
+
+  /** Sends a user who is already signed in (e.g. a bookmarked sign-in page) to the return URL. */
+  private async leaveIfSignedIn(): Promise<void> {
+    const user = await this.session.whenLoaded();
+    // The page may be gone by the time `/me` answers; navigating then would undo the user's move.
+    if (this.destroyRef.destroyed) return;
+    if (user === null) {
+      this.needsSignIn.set(true);
+      return;
+    }
+    // Replace the sign-in entry so Back does not land here and bounce forward again.
+    void this.router.navigateByUrl(safeReturnUrl(this.returnUrl()), { replaceUrl: true });
   }
 
   private prefillEmail(): void {
