@@ -1,0 +1,3 @@
+export * from './accumulate-cells';
+export * from './bilinear';
+export * from './validate-grid';

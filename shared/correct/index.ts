@@ -1,0 +1,3 @@
+export * from './base-grid';
+export * from './flag-lean-cells';
+export * from './propose-table';

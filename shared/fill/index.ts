@@ -1,0 +1,3 @@
+export * from './fill-gaps';
+export * from './fill-ratios';
+export * from './solve-harmonic';

@@ -1,0 +1,2 @@
+export * from './gaussian-filter';
+export * from './smooth-table';
