@@ -1,0 +1,2 @@
+export * from './analyse-logs';
+export * from './apply-analysis';
