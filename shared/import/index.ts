@@ -5,6 +5,7 @@ export * from './example-csv';
 export * from './import-error';
 export * from './log-build-result';
 export * from './log-builder';
+export * from './csv-importer';
 export * from './parse-csv-text';
 export * from './parse-decimal';
 export * from './parse-unit-text';

@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { STOICH_AFR } from '../units';
 import { EXAMPLE_STYLES, exampleCsv, type ExampleSample } from './example-csv';
 import { createLogBuilder } from './log-builder';
+import { createCsvImporter } from './csv-importer';
 import { createPapaChunkHandler, parseCsvChunks, parseCsvText } from './parse-csv-text';
 
 const OPTIONS = { stoichAfr: STOICH_AFR.gasoline };
@@ -184,5 +185,24 @@ describe('createPapaChunkHandler', () => {
     const { problems, log } = builder.finish();
     expect(log.length).toBe(2);
     expect(problems.map((p) => p.row)).toEqual([3]);
+  });
+});
+
+describe('createCsvImporter', () => {
+  it('When the file arrives in tiny pieces, then the log equals the whole-text import', () => {
+    const text = [
+      'time_s,engine_rpm,map_kpa,lambda_measured,lambda_target',
+      ...Array.from({ length: 50 }, (_, i) => `${i / 10},${2000 + i},${60 + i / 2},0.98,1`),
+    ].join('\n');
+    const importer = createCsvImporter(undefined, { stoichAfr: 14.7 });
+    expect(importer.plan).toBeNull();
+    for (let at = 0; at < text.length; at += 7) importer.push(text.slice(at, at + 7));
+    const pieces = importer.finish();
+    const whole = parseCsvText(text, undefined, { stoichAfr: 14.7 });
+    expect(pieces.log.length).toBe(50);
+    expect(Array.from(pieces.log.channels.rpm ?? [])).toEqual(
+      Array.from(whole.log.channels.rpm ?? []),
+    );
+    expect(() => importer.push('more')).toThrow(/after finish/);
   });
 });
