@@ -1,6 +1,6 @@
 import { locate } from '../core/lookup';
 import { type Grid, validateAxis } from '../core/table';
-import { validateGrid, validateMask } from './validate-grid';
+import { validateGrid, validateMask } from '../core/grid-checks';
 
 /** The samples of one or more logs to spread over a table's cells, plus the table's axes. */
 export interface AccumulateInput {

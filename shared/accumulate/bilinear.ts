@@ -1,6 +1,6 @@
 import { locate } from '../core/lookup';
 import { type Grid, type VeTable, validateAxis, validateTable } from '../core/table';
-import { validateGrid } from './validate-grid';
+import { validateGrid } from '../core/grid-checks';
 
 /** A grid together with the axes its rows (MAP) and columns (RPM) sit on. */
 export interface GridOnAxes extends Grid {

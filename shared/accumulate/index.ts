@@ -1,3 +1,2 @@
 export * from './accumulate-cells';
 export * from './bilinear';
-export * from './validate-grid';

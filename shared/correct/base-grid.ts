@@ -1,4 +1,4 @@
-import { validateGrid } from '../accumulate/validate-grid';
+import { validateGrid } from '../core/grid-checks';
 import { type Grid, tableToGrid, validateTable, type VeTable } from '../core/table';
 
 /**

@@ -1,5 +1,5 @@
 import { type CellStats } from '../accumulate/accumulate-cells';
-import { validateGrid } from '../accumulate/validate-grid';
+import { validateGrid } from '../core/grid-checks';
 import { validateAxis } from '../core/table';
 
 const ROUNDING_PERCENT = 1e-9;

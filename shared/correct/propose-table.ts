@@ -1,4 +1,4 @@
-import { validateGrid, validateMask } from '../accumulate/validate-grid';
+import { validateGrid, validateMask } from '../core/grid-checks';
 import { type CellStats } from '../accumulate/accumulate-cells';
 import { type Grid, type VeTable } from '../core/table';
 import { baseVeGrid } from './base-grid';

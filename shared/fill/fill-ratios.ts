@@ -1,4 +1,4 @@
-import { validateGrid, validateMask } from '../accumulate/validate-grid';
+import { validateGrid, validateMask } from '../core/grid-checks';
 import { type Grid, type VeTable } from '../core/table';
 import { baseVeGrid } from '../correct/base-grid';
 import { solveHarmonic } from './solve-harmonic';

@@ -1,4 +1,4 @@
-import { validateGrid } from '../accumulate/validate-grid';
+import { validateGrid } from '../core/grid-checks';
 import { type Grid } from '../core/table';
 
 function checkSigma(sigma: number, truncate: number): void {

@@ -1,4 +1,4 @@
-import { validateGrid, validateMask } from '../accumulate/validate-grid';
+import { validateGrid, validateMask } from '../core/grid-checks';
 import { type Grid } from '../core/table';
 import { normalizedConvolution } from './gaussian-filter';
 

@@ -1,4 +1,4 @@
-import { type Grid } from '../core/table';
+import { type Grid } from './table';
 
 /**
  * Throws unless `grid` is a well-formed rows × cols grid (positive integer sizes, a Float64Array
