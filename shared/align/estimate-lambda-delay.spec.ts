@@ -201,16 +201,35 @@ describe('findDelayEvents', () => {
     expect(found[0].causeTimeS).toBeCloseTo(1.95, 12);
   });
 
+  it('When the command ramps over several samples, then it is one event timed half-way', () => {
+    const ramp = Array.from({ length: 100 }, (_, i) =>
+      i < 30 ? 1 : i < 36 ? 1 - 0.02 * (i - 29) : 0.88,
+    );
+    const found = findDelayEvents(log({ lambdaTarget: ramp }));
+    expect(found).toHaveLength(1);
+    expect(found[0]).toMatchObject({ kind: 'lambdaTargetStep', index: 30, isStep: false });
+    expect(found[0].spanS[0]).toBeCloseTo(2.95, 12);
+    expect(found[0].spanS[1]).toBeCloseTo(3.45, 12);
+    expect(found[0].causeTimeS).toBeCloseTo(3.15, 12); // 0.94, half of the 0.12, at sample 32
+  });
+
   it('When two steps fall within the isolation time, then neither is kept', () => {
     expect(findDelayEvents(log({ lambdaTarget: steps(20, 25) }))).toHaveLength(0);
   });
 
-  it('When a tip-in comes with a commanded step, then only the step is kept', () => {
+  // Changed: a commanded step that comes with a moving throttle used to win over the tip-in.
+  // The throttle's transient fuel moves the mixture before the command does, which timed such
+  // steps early on simulated logs, so the step is no longer an event and the tip-in remains.
+  it('When a tip-in comes with a commanded step, then the step is dropped for the tip-in', () => {
     const tps = Array.from({ length: 100 }, (_, i) =>
       i < 20 ? 10 : i < 23 ? 10 + 25 * (i - 19) : 85,
     );
     const found = findDelayEvents(log({ lambdaTarget: steps(21), tps }));
-    expect(found.map((e) => e.kind)).toEqual(['lambdaTargetStep']);
+    expect(found.map((e) => e.kind)).toEqual(['tipIn']);
+    const steady = Array.from({ length: 100 }, () => 40);
+    expect(
+      findDelayEvents(log({ lambdaTarget: steps(21), tps: steady })).map((e) => e.kind),
+    ).toEqual(['lambdaTargetStep']);
     expect(findDelayEvents(log({ tps })).map((e) => [e.kind, e.index])).toEqual([['tipIn', 20]]);
   });
 });

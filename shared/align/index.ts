@@ -1,4 +1,5 @@
 export * from './align-lambda';
+export * from './command-answer-lag';
 export * from './estimate-lambda-delay';
 export * from './find-delay-events';
 export * from './interpolate-at-time';

@@ -1,3 +1,5 @@
+import { firstIndexAfter, windowMedian } from './series-window';
+
 /** Options of the lag measurements. */
 export interface EventLagOptions {
   /** Longest lag looked for, s. Default 1.2. */
@@ -10,8 +12,12 @@ export interface EventLagOptions {
   readonly minChange?: number;
 }
 
-/** A measured lag, or why there is none. */
-export type EventLag = { readonly lagS: number } | { readonly unmeasured: string };
+/**
+ * A measured lag (with the sensor's time constant when the method found it), or why there is
+ * none.
+ */
+export type EventLag =
+  { readonly lagS: number; readonly timeConstantS?: number } | { readonly unmeasured: string };
 
 /**
  * Times the sensor's answer to a step (a commanded-lambda step or a fuel-cut edge) by the
@@ -50,7 +56,7 @@ export function stepAnswerLag(
   if (!(lagS >= 0 && lagS <= maxLagS)) {
     return { unmeasured: `the answer's start (${lagS.toFixed(3)} s) is outside 0–${maxLagS} s` };
   }
-  return { lagS };
+  return { lagS, timeConstantS };
 }
 
 /**
@@ -103,30 +109,6 @@ export function tipInAnswerLag(
   return lagS >= 0 && lagS <= maxLagS
     ? { lagS }
     : { unmeasured: `the answer's peak (${lagS.toFixed(3)} s) is outside 0–${maxLagS} s` };
-}
-
-/** Median of the finite values with time in [from, to]; NaN when there are none. */
-function windowMedian(time: Float64Array, values: Float64Array, from: number, to: number): number {
-  const picked: number[] = [];
-  for (let i = firstIndexAfter(time, from - 1e-12); i < time.length && time[i] <= to; i++) {
-    if (!Number.isNaN(values[i])) picked.push(values[i]);
-  }
-  if (picked.length === 0) return NaN;
-  picked.sort((x, y) => x - y);
-  const m = picked.length >> 1;
-  return picked.length % 2 === 1 ? picked[m] : (picked[m - 1] + picked[m]) / 2;
-}
-
-/** First index whose time is above `t` (time.length when none). */
-function firstIndexAfter(time: Float64Array, t: number): number {
-  let lo = 0;
-  let hi = time.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (time[mid] > t) hi = mid;
-    else lo = mid + 1;
-  }
-  return lo;
 }
 
 /** When `values` first crosses `level` (upwards if `isRising`) from sample `from` up to `until`. */
