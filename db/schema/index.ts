@@ -3,3 +3,7 @@ export * from './users';
 export * from './invitations';
 export * from './audit-events';
 export * from './sessions';
+export * from './vehicles';
+export * from './ve-tables';
+export * from './logs';
+export * from './analyses';
