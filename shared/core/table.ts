@@ -98,3 +98,22 @@ export function withValues(table: VeTable, grid: Grid): VeTable {
     values: gridToRows(grid),
   };
 }
+
+/** A grid as nested arrays for JSON: `[row][col]`, with null where the grid holds NaN. */
+export function gridToJsonRows(grid: Grid): (number | null)[][] {
+  return gridToRows(grid).map((row) => row.map((v) => (Number.isFinite(v) ? v : null)));
+}
+
+/** Nested `[row][col]` arrays (null for no value) as a grid; throws naming a ragged row. */
+export function jsonRowsToGrid(rows: readonly (readonly (number | null)[])[], name = 'rows'): Grid {
+  const cols = rows[0]?.length ?? 0;
+  const grid = createGrid(rows.length, cols);
+  rows.forEach((row, r) => {
+    if (row.length !== cols)
+      throw new Error(`${name}[${r}] has ${row.length} columns, expected ${cols}`);
+    row.forEach((v, c) => {
+      grid.data[r * cols + c] = v === null ? NaN : v;
+    });
+  });
+  return grid;
+}
