@@ -54,7 +54,14 @@ async function main(): Promise<void> {
   const pool = new Pool({ connectionString: config.databaseUrl });
   const mailer: Mailer = { send: () => Promise.resolve(), close: () => undefined };
   const built = createApp(
-    { config, db: drizzle(pool, { schema }), mailer, capturedMailDir: null },
+    {
+      config,
+      db: drizzle(pool, { schema }),
+      mailer,
+      capturedMailDir: null,
+      // No uploads are measured: nothing is ever queued.
+      logJobs: { enqueueParse: () => Promise.resolve() },
+    },
     { pool, serveClient: false },
   );
   const body = JSON.stringify({ mailCapture: false, version: '0.1.0' });

@@ -11,7 +11,11 @@ import { cspNonce, securityHeaders } from './middleware/security';
 import { authRoutes, SESSION_COOKIE } from './routes/auth.routes';
 import { healthRoutes } from './routes/health.routes';
 import { invitationRoutes } from './routes/invitations.routes';
+import { logRoutes } from './routes/logs.routes';
+import { revisionRoutes } from './routes/revisions.routes';
+import { tableRoutes } from './routes/tables.routes';
 import { teamRoutes } from './routes/team.routes';
+import { vehicleRoutes } from './routes/vehicles.routes';
 import { staticClient } from './static-client';
 
 /** Options for building the app. */
@@ -75,6 +79,10 @@ export function createApp(ctx: AppContext, options: AppOptions): BuiltApp {
   api.use(authRoutes(ctx, auth));
   api.use(invitationRoutes(ctx));
   api.use(teamRoutes(ctx));
+  api.use(vehicleRoutes(ctx));
+  api.use(tableRoutes(ctx));
+  api.use(revisionRoutes(ctx));
+  api.use(logRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -22,6 +22,7 @@ const envSchema = z.object({
   LOGIN_MAX_FAILURES: z.coerce.number().int().min(1).default(10),
   LOGIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   CLIENT_DIST: z.string().optional(),
+  MAX_UPLOAD_MB: z.coerce.number().positive().default(512),
 });
 
 /** The server's settings, read once from the environment at boot. */
@@ -52,6 +53,8 @@ export interface AppConfig {
   loginWindowMs: number;
   /** Folder of the built client (index.html and assets). */
   clientDist: string;
+  /** The largest log file an upload may carry, in bytes (larger: 413). */
+  maxUploadBytes: number;
 }
 
 /** Reads the session secret from the environment, or from (or into) the data folder. */
@@ -90,5 +93,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     loginMaxFailures: e.LOGIN_MAX_FAILURES,
     loginWindowMs: e.LOGIN_WINDOW_MINUTES * 60_000,
     clientDist: resolve(projectRoot(), e.CLIENT_DIST ?? 'dist/cellsmith/browser'),
+    maxUploadBytes: Math.floor(e.MAX_UPLOAD_MB * 1024 * 1024),
   };
 }

@@ -1,5 +1,6 @@
 import type { AppConfig } from './config';
 import type { Database } from './db';
+import type { LogJobs } from './jobs/log-jobs';
 import type { Mailer } from './mail/mailer';
 
 /** What routes and services need, built once at boot (or by a test). */
@@ -12,4 +13,6 @@ export interface AppContext {
   mailer: Mailer;
   /** Folder of captured mail when the local mail catcher is in use, else null. */
   capturedMailDir: string | null;
+  /** Background jobs: a stored log's parse is queued through this. */
+  logJobs: LogJobs;
 }

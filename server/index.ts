@@ -3,6 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import { loadConfig } from './config';
 import { openDatabase } from './db';
+import { startLogJobs } from './jobs/log-jobs';
 import { startMailCatcher, type MailCatcher } from './mail/mail-catcher';
 import { createSmtpMailer } from './mail/mailer';
 
@@ -22,7 +23,8 @@ async function main(): Promise<void> {
     );
   }
   const mailer = createSmtpMailer(smtpUrl, config.mailFrom);
-  const built = createApp({ config, db, mailer, capturedMailDir }, { pool });
+  const logJobs = await startLogJobs({ db, config });
+  const built = createApp({ config, db, mailer, capturedMailDir, logJobs }, { pool });
   const server = built.app.listen(config.port, config.host);
   await new Promise<void>((resolvePromise, reject) => {
     server.once('listening', resolvePromise);
@@ -39,7 +41,11 @@ async function main(): Promise<void> {
     server.close(() => {
       built.close();
       mailer.close();
-      void Promise.all([pool.end(), catcher?.close()]).finally(() => process.exit(0));
+      // Jobs stop first: a parse in progress stops at its next piece and resumes at next start.
+      void logJobs
+        .stop()
+        .catch((err: unknown) => console.error('[cellsmith] the job queue did not stop:', err))
+        .finally(() => Promise.all([pool.end(), catcher?.close()]).finally(() => process.exit(0)));
     });
     server.closeAllConnections();
     setTimeout(() => process.exit(1), 10_000).unref();

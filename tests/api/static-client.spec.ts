@@ -33,6 +33,7 @@ describe('serving the built client', () => {
         db: handle.db,
         mailer: { send: () => Promise.resolve(), close: () => undefined },
         capturedMailDir: null,
+        logJobs: { enqueueParse: () => Promise.resolve() },
       },
       { pool: handle.pool },
     );

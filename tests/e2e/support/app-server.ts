@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import type { Server as HttpServer } from 'node:http';
 import { createServer, type Server } from 'node:net';
@@ -7,6 +8,7 @@ import { join } from 'node:path';
 import { createApp } from '../../../server/app';
 import { loadConfig } from '../../../server/config';
 import { openDatabase } from '../../../server/db';
+import { startLogJobs } from '../../../server/jobs/log-jobs';
 import { startMailCatcher } from '../../../server/mail/mail-catcher';
 import { createSmtpMailer } from '../../../server/mail/mailer';
 import { projectRoot } from '../../../server/project-root';
@@ -53,7 +55,10 @@ export async function startRunningApp(): Promise<RunningApp> {
   });
   const { db, pool } = openDatabase(databaseUrl, 4);
   const mailer = createSmtpMailer(catcher.url, config.mailFrom);
-  const built = createApp({ config, db, mailer, capturedMailDir: mailDir }, { pool });
+  // Its own job schema: the API tests share the database and must not take these jobs.
+  const jobsSchema = `pgboss_e2e_${randomBytes(5).toString('hex')}`;
+  const logJobs = await startLogJobs({ db, config, schema: jobsSchema });
+  const built = createApp({ config, db, mailer, capturedMailDir: mailDir, logJobs }, { pool });
   const server = await new Promise<HttpServer>((resolveServer, reject) => {
     const s = built.app.listen(port, '127.0.0.1', () => resolveServer(s));
     s.once('error', reject);
@@ -65,9 +70,11 @@ export async function startRunningApp(): Promise<RunningApp> {
         server.close(() => r());
         server.closeAllConnections();
       });
+      await logJobs.stop();
       built.close();
       mailer.close();
       await catcher.close();
+      await pool.query(`DROP SCHEMA IF EXISTS "${jobsSchema}" CASCADE`);
       await pool.end();
       rmSync(dir, { recursive: true, force: true });
     },

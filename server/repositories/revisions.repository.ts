@@ -1,0 +1,109 @@
+import { and, asc, eq, max } from 'drizzle-orm';
+import { revisions, users } from '../../db/schema';
+import type { Revision, RevisionStatus, RevisionSummary } from '../../shared/contracts/tables';
+import type { Executor } from '../db';
+
+/** What a new revision is made of. */
+export interface NewRevisionFields {
+  /** The table it belongs to (already checked to be in the shop, and locked). */
+  tableId: string;
+  /** The revision it was derived from; null for a table's first. */
+  parentId: string | null;
+  /** Its number within the table, 1 upwards. */
+  number: number;
+  /** VE in percent, `[row][col]`. */
+  values: number[][];
+  /** What changed and why. */
+  message: string;
+  /** Who made it. */
+  authorId: string;
+  /** The analysis it was applied from, if any. */
+  analysisId?: string | null;
+}
+
+const summaryColumns = {
+  id: revisions.id,
+  tableId: revisions.tableId,
+  parentId: revisions.parentId,
+  number: revisions.number,
+  status: revisions.status,
+  message: revisions.message,
+  authorId: revisions.authorId,
+  authorName: users.name,
+  analysisId: revisions.analysisId,
+  createdAt: revisions.createdAt,
+};
+
+interface SummaryRow {
+  id: string;
+  tableId: string;
+  parentId: string | null;
+  number: number;
+  status: RevisionStatus;
+  message: string;
+  authorId: string;
+  authorName: string;
+  analysisId: string | null;
+  createdAt: Date;
+}
+
+function toSummary(row: SummaryRow): RevisionSummary {
+  return { ...row, createdAt: row.createdAt.toISOString() };
+}
+
+/** Stores a new revision of a shop's table and returns its id. */
+export async function insertRevision(
+  db: Executor,
+  shopId: string,
+  fields: NewRevisionFields,
+): Promise<string> {
+  const [row] = await db
+    .insert(revisions)
+    .values({ shopId, ...fields })
+    .returning({ id: revisions.id });
+  if (!row) throw new Error('insertRevision: no row returned');
+  return row.id;
+}
+
+/** One revision of a shop with its values, or null when there is none with this id there. */
+export async function findRevision(
+  db: Executor,
+  shopId: string,
+  id: string,
+): Promise<Revision | null> {
+  const [row] = await db
+    .select({ ...summaryColumns, values: revisions.values })
+    .from(revisions)
+    .innerJoin(users, eq(users.id, revisions.authorId))
+    .where(and(eq(revisions.shopId, shopId), eq(revisions.id, id)))
+    .limit(1);
+  return row ? { ...toSummary(row), values: row.values } : null;
+}
+
+/** The revisions of a shop's table without their values, by number ascending. */
+export async function listRevisionsOfTable(
+  db: Executor,
+  shopId: string,
+  tableId: string,
+): Promise<RevisionSummary[]> {
+  const rows = await db
+    .select(summaryColumns)
+    .from(revisions)
+    .innerJoin(users, eq(users.id, revisions.authorId))
+    .where(and(eq(revisions.shopId, shopId), eq(revisions.tableId, tableId)))
+    .orderBy(asc(revisions.number));
+  return rows.map(toSummary);
+}
+
+/** The highest revision number of a shop's table, 0 when it has none. */
+export async function findLastRevisionNumber(
+  db: Executor,
+  shopId: string,
+  tableId: string,
+): Promise<number> {
+  const [row] = await db
+    .select({ last: max(revisions.number) })
+    .from(revisions)
+    .where(and(eq(revisions.shopId, shopId), eq(revisions.tableId, tableId)));
+  return row?.last ?? 0;
+}

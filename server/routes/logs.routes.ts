@@ -1,0 +1,66 @@
+import { Router } from 'express';
+import {
+  logIdParamSchema,
+  logVehicleParamSchema,
+  uploadLogFieldsSchema,
+  type UploadLogFields,
+} from '../../shared/contracts/logs';
+import type { AppContext } from '../context';
+import { currentUser, requireRoles, requireSignedIn } from '../middleware/auth';
+import { receiveLogUpload } from '../middleware/log-upload';
+import { validate, validated } from '../middleware/validate';
+import { receivedFileOf } from '../services/log-storage.service';
+import { getLog, listVehicleLogs, requireVehicle, uploadLog } from '../services/logs.service';
+
+type IdParams = { id: string };
+
+/** Log routes: upload (multipart, parsed in the background), one log, a vehicle's logs. */
+export function logRoutes(ctx: AppContext): Router {
+  const router = Router();
+
+  router.post(
+    '/vehicles/:id/logs',
+    requireRoles('tuner', 'operator'),
+    validate({ params: logVehicleParamSchema }),
+    // Before reading the file: another shop's vehicle is refused without receiving it.
+    async (req, res, next) => {
+      await requireVehicle(
+        ctx.db,
+        currentUser(req),
+        validated<unknown, unknown, IdParams>(res).params.id,
+      );
+      next();
+    },
+    receiveLogUpload(ctx.config),
+    // The text fields exist only now; `validate` replaces what it parsed, so params go again.
+    validate({ params: logVehicleParamSchema, body: uploadLogFieldsSchema }),
+    async (req, res) => {
+      const { params, body } = validated<UploadLogFields, unknown, IdParams>(res);
+      const file = receivedFileOf(req.file);
+      res.status(202).json(await uploadLog(ctx, currentUser(req), params.id, body, file));
+    },
+  );
+
+  router.get(
+    '/vehicles/:id/logs',
+    requireSignedIn,
+    validate({ params: logVehicleParamSchema }),
+    async (req, res) => {
+      const { params } = validated<unknown, unknown, IdParams>(res);
+      const items = await listVehicleLogs(ctx.db, currentUser(req), params.id);
+      res.json({ items, total: items.length });
+    },
+  );
+
+  router.get(
+    '/logs/:id',
+    requireSignedIn,
+    validate({ params: logIdParamSchema }),
+    async (req, res) => {
+      const { params } = validated<unknown, unknown, IdParams>(res);
+      res.json(await getLog(ctx.db, currentUser(req), params.id));
+    },
+  );
+
+  return router;
+}

@@ -1,0 +1,53 @@
+import { Router } from 'express';
+import {
+  compareRevisionsQuerySchema,
+  exportRevisionQuerySchema,
+  revisionIdParamSchema,
+  type CompareRevisionsQuery,
+  type ExportRevisionQuery,
+  type IdParams,
+} from '../../shared/contracts/tables';
+import type { AppContext } from '../context';
+import { currentUser, requireSignedIn } from '../middleware/auth';
+import { validate, validated } from '../middleware/validate';
+import { compareRevisions, exportRevision, getRevision } from '../services/revisions.service';
+
+/** Reading revisions: one with its values, its export as a file, and two compared. */
+export function revisionRoutes(ctx: AppContext): Router {
+  const router = Router();
+
+  // Declared before `/revisions/:id` so the word `compare` is never taken for an id.
+  router.get(
+    '/revisions/compare',
+    requireSignedIn,
+    validate({ query: compareRevisionsQuerySchema }),
+    async (req, res) => {
+      const { query } = validated<unknown, CompareRevisionsQuery>(res);
+      res.json(await compareRevisions(ctx.db, currentUser(req), query));
+    },
+  );
+
+  router.get(
+    '/revisions/:id',
+    requireSignedIn,
+    validate({ params: revisionIdParamSchema }),
+    async (req, res) => {
+      const { params } = validated<unknown, unknown, IdParams>(res);
+      res.json(await getRevision(ctx.db, currentUser(req), params.id));
+    },
+  );
+
+  router.get(
+    '/revisions/:id/export',
+    requireSignedIn,
+    validate({ params: revisionIdParamSchema, query: exportRevisionQuerySchema }),
+    async (req, res) => {
+      const { params, query } = validated<unknown, ExportRevisionQuery, IdParams>(res);
+      const file = await exportRevision(ctx.db, currentUser(req), params.id, query.format);
+      res.attachment(file.fileName);
+      res.type(file.contentType).send(file.text);
+    },
+  );
+
+  return router;
+}

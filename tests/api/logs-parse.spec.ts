@@ -1,0 +1,180 @@
+import { eq } from 'drizzle-orm';
+import request from 'supertest';
+import { logChannels } from '../../db/schema';
+import type { LogResource } from '../../shared/contracts/logs';
+import { type ApiClient, signedIn } from './support/api-client';
+import { startTestApp, type TestApp } from './support/test-app';
+import { insertTestVehicle, postLog, simulatedCsv, waitForLog } from './support/test-logs';
+import { createTestShop, TEST_PASSWORD, type TestShop } from './support/test-shop';
+
+/** The snake style's mapping, given explicitly so damaged rows never sway a suggestion. */
+const SNAKE_MAPPING = {
+  channels: {
+    time: { column: 'time_s', unit: 's' },
+    rpm: { column: 'engine_rpm' },
+    map: { column: 'map_kpa', unit: 'kPa' },
+    lambda: { column: 'lambda_measured', unit: 'lambda' },
+    lambdaTarget: { column: 'lambda_target', unit: 'lambda' },
+    iat: { column: 'iat_c', unit: 'C' },
+  },
+};
+
+/** `text` with the RPM cell of the data rows for which `isBad(index)` holds replaced by junk. */
+function damageRpm(text: string, isBad: (dataIndex: number) => boolean): string {
+  const lines = text.split('\n');
+  return lines
+    .map((line, i) => {
+      if (i === 0 || line === '' || !isBad(i - 1)) return line;
+      const cells = line.split(',');
+      cells[1] = 'n/a';
+      return cells.join(',');
+    })
+    .join('\n');
+}
+
+describe('log parsing and reads', () => {
+  let t: TestApp;
+  let shop: TestShop;
+  let otherShop: TestShop;
+  let tuner: ApiClient;
+  let reviewer: ApiClient;
+  let vehicleId: string;
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    shop = await createTestShop(t.db, 'logs-parse');
+    otherShop = await createTestShop(t.db, 'logs-parse-other');
+    tuner = await signedIn(t.app, shop.emails.tuner, TEST_PASSWORD);
+    reviewer = await signedIn(t.app, shop.emails.reviewer, TEST_PASSWORD);
+    vehicleId = await insertTestVehicle(t.db, shop.id);
+  });
+  afterAll(() => t.close());
+
+  describe('background parse', () => {
+    it('When a few rows are bad, then they are dropped and reported with row and column', async () => {
+      const bad = new Set([100, 250, 251]);
+      const text = damageRpm(simulatedCsv('snake', 50), (i) => bad.has(i));
+      const res = await postLog(tuner, vehicleId, text, { mapping: SNAKE_MAPPING });
+      expect(res.status).toBe(202);
+      const log = await waitForLog(tuner, res.body.id);
+      expect(log.status).toBe('ready');
+      const rows = text.split('\n').filter((l) => l !== '').length - 1;
+      expect(log.sampleCount).toBe(rows - 3);
+      expect(log.parseReport?.stats).toMatchObject({
+        rowsRead: rows,
+        rowsKept: rows - 3,
+        rowsDroppedUnreadable: 3,
+        problemCount: 3,
+        isMostlyBad: false,
+      });
+      // Lines count from 0 with the header on line 0: data row i is line i + 1.
+      expect(log.parseReport?.problems).toEqual(
+        [101, 251, 252].map((row) => ({
+          row,
+          column: 'engine_rpm',
+          channel: 'rpm',
+          message: 'not a number: "n/a"',
+        })),
+      );
+    });
+
+    it('When most rows are bad, then the log fails with the code, counts and first row/column', async () => {
+      const text = damageRpm(simulatedCsv('snake', 51), (i) => i >= 30 && i % 5 !== 0);
+      const res = await postLog(tuner, vehicleId, text, { mapping: SNAKE_MAPPING });
+      expect(res.status).toBe(202);
+      const log = await waitForLog(tuner, res.body.id);
+      expect(log.status).toBe('failed');
+      // The first damaged row is data row 31 (30 is spared as a multiple of 5): line 32.
+      expect(log.error).toMatchObject({
+        code: 'mostly_bad',
+        details: { row: 32, column: 'engine_rpm' },
+      });
+      expect(log.sampleCount).toBeNull();
+      expect(log.parseReport?.problems).toHaveLength(50);
+      expect(log.parseReport?.stats?.problemCount).toBeGreaterThan(50);
+      const stored = await t.db.select().from(logChannels).where(eq(logChannels.logId, log.id));
+      expect(stored).toEqual([]);
+    });
+
+    it('When no row at all can be read, then the log fails with no_usable_rows and a location', async () => {
+      const text = damageRpm(simulatedCsv('snake', 52, 10), () => true);
+      const res = await postLog(tuner, vehicleId, text, { mapping: SNAKE_MAPPING });
+      expect(res.status).toBe(202);
+      const log = await waitForLog(tuner, res.body.id);
+      expect(log).toMatchObject({
+        status: 'failed',
+        error: { code: 'no_usable_rows', details: { row: 1, column: 'engine_rpm' } },
+      });
+    });
+
+    it('When gauge boost comes without a barometer column, then 422 missing baro', async () => {
+      const text = [
+        'time_s,engine_rpm,boost_psi,lambda_measured,lambda_target',
+        ...Array.from({ length: 30 }, (_, i) => `${i * 0.05},${3000 + i},5.0,0.85,0.82`),
+      ].join('\n');
+      const res = await postLog(tuner, vehicleId, text);
+      expect(res.status).toBe(422);
+      expect(res.body.error.details.missing).toEqual(['baro']);
+    });
+  });
+
+  describe('GET /api/logs/:id', () => {
+    it('When a reviewer reads a log of their shop, then the log with its mapping and figures', async () => {
+      const res = await postLog(tuner, vehicleId, simulatedCsv('unitsrow', 53));
+      await waitForLog(tuner, res.body.id);
+      const read = await reviewer.get(`/api/logs/${res.body.id}`);
+      expect(read.status).toBe(200);
+      const log = read.body as LogResource;
+      expect(Object.keys(log).sort()).toEqual(
+        [
+          'channelSummary',
+          'createdAt',
+          'durationS',
+          'ecuRevisionId',
+          'error',
+          'fileName',
+          'id',
+          'kind',
+          'mapping',
+          'parseReport',
+          'progress',
+          'sampleCount',
+          'sizeBytes',
+          'status',
+          'updatedAt',
+          'vehicleId',
+        ].sort(),
+      );
+      expect(log.mapping).toMatchObject({ headerRow: 0, unitsRow: 1, delimiter: '\t' });
+      expect(log.channelSummary?.lambdaTarget?.min).toBeGreaterThan(0.6);
+    });
+
+    it('When the log belongs to another shop, then 404; a malformed id 400; signed out 401', async () => {
+      const res = await postLog(tuner, vehicleId, simulatedCsv('snake', 54));
+      const other = await signedIn(t.app, otherShop.emails.tuner, TEST_PASSWORD);
+      const foreign = await other.get(`/api/logs/${res.body.id}`);
+      expect(foreign.status).toBe(404);
+      expect(foreign.body.error.code).toBe('not_found');
+      expect((await tuner.get('/api/logs/123')).status).toBe(400);
+      expect((await request(t.app).get(`/api/logs/${res.body.id}`)).status).toBe(401);
+    });
+  });
+
+  describe('GET /api/vehicles/:id/logs', () => {
+    it('When an operator lists a vehicle’s logs, then newest first with a total', async () => {
+      const car = await insertTestVehicle(t.db, shop.id, 'Listed car');
+      const first = await postLog(tuner, car, simulatedCsv('snake', 55));
+      const second = await postLog(tuner, car, simulatedCsv('snake', 56));
+      const operator = await signedIn(t.app, shop.emails.operator, TEST_PASSWORD);
+      const res = await operator.get(`/api/vehicles/${car}/logs`);
+      expect(res.status).toBe(200);
+      expect(res.body.total).toBe(2);
+      expect(res.body.items.map((l: LogResource) => l.id)).toEqual([second.body.id, first.body.id]);
+    });
+
+    it('When the vehicle belongs to another shop, then 404', async () => {
+      const otherVehicle = await insertTestVehicle(t.db, otherShop.id);
+      expect((await tuner.get(`/api/vehicles/${otherVehicle}/logs`)).status).toBe(404);
+    });
+  });
+});
