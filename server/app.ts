@@ -8,6 +8,7 @@ import { createPassport } from './middleware/auth';
 import { csrfProtection } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { cspNonce, securityHeaders } from './middleware/security';
+import { analysisRoutes } from './routes/analyses.routes';
 import { authRoutes, SESSION_COOKIE } from './routes/auth.routes';
 import { healthRoutes } from './routes/health.routes';
 import { invitationRoutes } from './routes/invitations.routes';
@@ -83,6 +84,7 @@ export function createApp(ctx: AppContext, options: AppOptions): BuiltApp {
   api.use(tableRoutes(ctx));
   api.use(revisionRoutes(ctx));
   api.use(logRoutes(ctx));
+  api.use(analysisRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

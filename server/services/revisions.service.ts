@@ -53,6 +53,7 @@ export function addRevision(
   actor: SessionUserRecord,
   tableId: string,
   body: CreateRevisionRequest,
+  options: { analysisId?: string } = {},
 ): Promise<Revision> {
   return db.transaction(async (tx) => {
     const table = await findTable(tx, actor.shopId, tableId, { forUpdate: true });
@@ -75,6 +76,7 @@ export function addRevision(
       values: body.values,
       message: body.message,
       authorId: actor.id,
+      analysisId: options.analysisId ?? null,
     });
     await setHeadRevision(tx, actor.shopId, table.id, id);
     await recordAudit(tx, {
@@ -83,7 +85,7 @@ export function addRevision(
       action: 'revision.created',
       targetType: 'revision',
       targetId: id,
-      details: { tableId: table.id, number, parentId: parent.id },
+      details: { tableId: table.id, number, parentId: parent.id, analysisId: options.analysisId },
     });
     const created = await findRevision(tx, actor.shopId, id);
     if (!created) throw new Error('addRevision: the new revision is missing');

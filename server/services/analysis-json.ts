@@ -1,0 +1,127 @@
+import type { CellStats } from '../../shared/accumulate';
+import { gridToJsonRows, jsonRowsToGrid, type Grid } from '../../shared/core/table';
+import type { Analysis } from '../../shared/pipeline';
+
+/** The per-cell grids an analysis keeps, as JSON rows (null = no value). */
+export const STORED_CELL_GRIDS = [
+  'count',
+  'weight',
+  'ratio',
+  'spread',
+  'effectiveCount',
+  'lambdaError',
+  'worstLean',
+  'lambdaMeasured',
+  'lambdaCommanded',
+] as const;
+
+/** One stored grid's name. */
+export type StoredCellGrid = (typeof STORED_CELL_GRIDS)[number];
+
+/** How an analysis's per-cell results are stored. */
+export type StoredCells = Record<StoredCellGrid, (number | null)[][]>;
+
+/** How an analysis's proposal is stored. */
+export interface StoredProposal {
+  /** Proposed VE, `[row][col]`. */
+  values: (number | null)[][];
+  /** Applied ratio. */
+  ratio: (number | null)[][];
+  /** Change in %. */
+  changePercent: (number | null)[][];
+  /** Status per cell, `[row][col]`. */
+  status: string[][];
+}
+
+/** The results of one cell as the API shows them. */
+export interface CellResult {
+  /** Samples touching the cell. */
+  samples: number;
+  /** Total bilinear weight. */
+  weight: number;
+  /** Weighted mean correction ratio (null: no data). */
+  ratio: number | null;
+  /** Weighted spread of the ratio. */
+  spread: number | null;
+  /** Effective sample count. */
+  effectiveCount: number;
+  /** Weighted mean lambda error, % (positive lean). */
+  lambdaErrorPct: number | null;
+  /** Worst lean excursion under load, %. */
+  worstLeanPct: number | null;
+  /** Mean measured lambda. */
+  lambdaMeasured: number | null;
+  /** Mean commanded lambda. */
+  lambdaCommanded: number | null;
+  /** Proposed VE. */
+  proposal: number | null;
+  /** Proposed change, %. */
+  changePct: number | null;
+  /** Whether the cell is trusted, short of data, locked or without data. */
+  status: string;
+}
+
+/** Splits a row-major list into rows of `cols`. */
+function toRows<T>(items: readonly T[], cols: number): T[][] {
+  const rows: T[][] = [];
+  for (let i = 0; i < items.length; i += cols) rows.push(items.slice(i, i + cols));
+  return rows;
+}
+
+/** An analysis's per-cell grids and proposal in their stored JSON form. */
+export function storeAnalysis(analysis: Analysis): {
+  cells: StoredCells;
+  proposal: StoredProposal;
+} {
+  const cells = Object.fromEntries(
+    STORED_CELL_GRIDS.map((name) => [name, gridToJsonRows(analysis.cells[name])]),
+  ) as StoredCells;
+  const { proposal } = analysis;
+  return {
+    cells,
+    proposal: {
+      values: gridToJsonRows(proposal.values),
+      ratio: gridToJsonRows(proposal.ratio),
+      changePercent: gridToJsonRows(proposal.changePercent),
+      status: toRows(proposal.status, proposal.values.cols),
+    },
+  };
+}
+
+/** A stored grid back as a Grid. */
+export function storedGrid(cells: StoredCells, name: StoredCellGrid): Grid {
+  return jsonRowsToGrid(cells[name], `cells.${name}`);
+}
+
+/** The evidence `applyAnalysis` needs, from the stored cells. */
+export function storedEvidence(cells: StoredCells): Pick<CellStats, 'ratio' | 'weight' | 'spread'> {
+  return {
+    ratio: storedGrid(cells, 'ratio'),
+    weight: storedGrid(cells, 'weight'),
+    spread: storedGrid(cells, 'spread'),
+  };
+}
+
+function pct(value: number | null | undefined): number | null {
+  return value === null || value === undefined ? null : value * 100;
+}
+
+/** The per-cell results `[row][col]` as the API answers them. */
+export function cellResults(cells: StoredCells, proposal: StoredProposal): CellResult[][] {
+  return cells.weight.map((row, r) =>
+    row.map((weight, c) => ({
+      samples: cells.count[r]?.[c] ?? 0,
+      weight: weight ?? 0,
+      ratio: cells.ratio[r]?.[c] ?? null,
+      spread: cells.spread[r]?.[c] ?? null,
+      effectiveCount: cells.effectiveCount[r]?.[c] ?? 0,
+      lambdaErrorPct: pct(cells.lambdaError[r]?.[c]),
+      worstLeanPct: pct(cells.worstLean[r]?.[c]),
+      lambdaMeasured: cells.lambdaMeasured[r]?.[c] ?? null,
+      lambdaCommanded: cells.lambdaCommanded[r]?.[c] ?? null,
+      proposal: proposal.values[r]?.[c] ?? null,
+      changePct: proposal.changePercent[r]?.[c] ?? null,
+      status: proposal.status[r]?.[c] ?? 'no_data',
+    })),
+  );
+}
