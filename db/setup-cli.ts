@@ -3,6 +3,7 @@ import { loadConfig } from '../server/config';
 import { openDatabase } from '../server/db';
 import { runMigrations } from './migrate';
 import { demoPassword } from './seed/demo-shop';
+import { seedDemoGarage } from './seed/demo-garage';
 import { seedDemo } from './seed/seed';
 
 async function main(): Promise<void> {
@@ -17,6 +18,10 @@ async function main(): Promise<void> {
         `[cellsmith] demo shop seeded (${report.shopsCreated} shops, ${report.usersCreated} users added, ` +
           `${report.passwordsReset} passwords reset)`,
       );
+      if (!process.argv.includes('--no-garage')) {
+        const vehiclesAdded = await seedDemoGarage(db, config);
+        console.log(`[cellsmith] demo garage: ${vehiclesAdded} vehicles added with their logs`);
+      }
     }
   } finally {
     await pool.end();
