@@ -13,8 +13,8 @@ import { textForRoles } from '../../shared/ui/role-text';
       <app-area-intro
         title="Logs"
         icon="monitoring"
-        emptyTitle="No logs yet"
-        emptyText="No wideband logs have been uploaded. Log import arrives in an upcoming release."
+        emptyTitle="Log list coming next"
+        emptyText="Logs are already uploaded and parsed through the API; this page will list them and take uploads in the next release."
         [description]="description()"
       />
     </div>

@@ -13,8 +13,8 @@ import { textForRoles } from '../../shared/ui/role-text';
       <app-area-intro
         title="Tables"
         icon="grid_on"
-        emptyTitle="No tables yet"
-        emptyText="No VE tables exist in this shop yet. The table workspace arrives in an upcoming release."
+        emptyTitle="Table workspace coming next"
+        emptyText="Tables, revisions and analyses already work through the API; the table workspace arrives in the next release."
         [description]="description()"
       />
     </div>
