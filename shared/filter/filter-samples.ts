@@ -95,16 +95,47 @@ export function filterSamples(
 
 /** The odd sample count nearest to `windowS` at the log's median time step (at least 3). */
 function rateWindowSamples(time: Float64Array, windowS: number): number {
-  const steps: number[] = [];
+  const steps = new Float64Array(Math.max(0, time.length - 1));
+  let count = 0;
   for (let i = 1; i < time.length; i++) {
     const d = time[i] - time[i - 1];
-    if (d > 0) steps.push(d);
+    if (d > 0) steps[count++] = d;
   }
-  if (steps.length === 0) return 3;
-  steps.sort((a, b) => a - b);
-  const median = steps[steps.length >> 1];
+  if (count === 0) return 3;
+  const median = kthSmallest(steps.subarray(0, count), count >> 1);
   const samples = Math.round(windowS / median) + 1;
   return Math.max(3, samples % 2 === 1 ? samples : samples + 1);
+}
+
+/**
+ * The k-th smallest of `values` (from 0), as `sorted[k]` would be, found by selection in O(n)
+ * rather than a sort: a million steps sort in about 100 ms. Reorders `values`, which must hold
+ * no NaN.
+ */
+function kthSmallest(values: Float64Array, k: number): number {
+  let lo = 0;
+  let hi = values.length - 1;
+  while (lo < hi) {
+    // Hoare partition around the middle value; equal values may land on either side.
+    const pivot = values[(lo + hi) >> 1];
+    let i = lo;
+    let j = hi;
+    while (i <= j) {
+      while (values[i] < pivot) i++;
+      while (values[j] > pivot) j--;
+      if (i <= j) {
+        const t = values[i];
+        values[i] = values[j];
+        values[j] = t;
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else return values[k];
+  }
+  return values[k];
 }
 
 /** Evaluates one rule over the whole log. */

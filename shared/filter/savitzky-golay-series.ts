@@ -51,14 +51,65 @@ export function savitzkyGolaySeries(
   const width = Math.min(windowLength, n);
   const half = (windowLength - 1) / 2;
   const step = evenStep(time);
-  const cached = new Map<number, Float64Array>();
+  const order = Math.min(polyOrder, width - 1);
+  // On an even grid the weights depend only on the sample's place in its window: one set for
+  // the interior, a few for the ends, each made once.
+  const cached: (Float64Array | undefined)[] = [];
+  const evenWeights = (position: number): Float64Array =>
+    (cached[position] ??= savitzkyGolayCoefficients(width, order, {
+      derivative,
+      delta: step as number,
+      position,
+    }));
+  // unusable[j]: how many samples before j have a NaN time or value, so that a window's count
+  // of them is one subtraction.
+  const unusable = new Int32Array(n + 1);
+  for (let j = 0; j < n; j++) {
+    unusable[j + 1] = unusable[j] + (Number.isNaN(time[j]) || Number.isNaN(values[j]) ? 1 : 0);
+  }
+  const centre = step !== null && width === windowLength ? evenWeights(half) : null;
   const offsets = new Float64Array(width);
   const picked = new Float64Array(width);
 
   for (let i = 0; i < n; i++) {
+    if (
+      centre !== null &&
+      i >= half &&
+      i + 3 + half < n &&
+      unusable[i + 4 + half] === unusable[i - half]
+    ) {
+      // Four full interior windows: four sums side by side, each added in the same order as
+      // alone (so the same result), which lets the processor overlap their additions.
+      const lo = i - half;
+      let s0 = 0;
+      let s1 = 0;
+      let s2 = 0;
+      let s3 = 0;
+      for (let k = 0; k < width; k++) {
+        const w = centre[k];
+        s0 += w * values[lo + k];
+        s1 += w * values[lo + k + 1];
+        s2 += w * values[lo + k + 2];
+        s3 += w * values[lo + k + 3];
+      }
+      out[i] = s0;
+      out[i + 1] = s1;
+      out[i + 2] = s2;
+      out[i + 3] = s3;
+      i += 3;
+      continue;
+    }
     const ti = time[i];
     if (Number.isNaN(ti)) continue;
     const lo = Math.max(0, Math.min(i - half, n - width));
+    if (step !== null && unusable[lo + width] === unusable[lo]) {
+      // A full window on an even grid: a plain weighted sum, the convolution of scipy.
+      const weights = i - lo === half && centre !== null ? centre : evenWeights(i - lo);
+      let sum = 0;
+      for (let k = 0; k < width; k++) sum += weights[k] * values[lo + k];
+      out[i] = sum;
+      continue;
+    }
     let usable = 0;
     for (let j = lo; j < lo + width; j++) {
       if (Number.isNaN(time[j]) || Number.isNaN(values[j])) continue;
@@ -68,24 +119,10 @@ export function savitzkyGolaySeries(
     }
     if (usable < polyOrder + 1) continue;
     let weights: Float64Array;
-    if (step !== null && usable === width) {
-      const position = i - lo;
-      let w = cached.get(position);
-      if (!w) {
-        w = savitzkyGolayCoefficients(width, Math.min(polyOrder, width - 1), {
-          derivative,
-          delta: step,
-          position,
-        });
-        cached.set(position, w);
-      }
-      weights = w;
-    } else {
-      try {
-        weights = polynomialFitWeights(offsets.subarray(0, usable), polyOrder, derivative);
-      } catch {
-        continue; // repeated timestamps left too few distinct points: the value is unknown
-      }
+    try {
+      weights = polynomialFitWeights(offsets.subarray(0, usable), polyOrder, derivative);
+    } catch {
+      continue; // repeated timestamps left too few distinct points: the value is unknown
     }
     let sum = 0;
     for (let k = 0; k < usable; k++) sum += weights[k] * picked[k];

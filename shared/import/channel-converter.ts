@@ -17,6 +17,22 @@ import { CHANNEL_UNITS, type ChannelUnit } from './column-mapping';
 /** Turns one value in a column's unit into the channel's canonical unit. */
 export type ValueConverter = (value: number) => number;
 
+/** The converter of a column already in its channel's canonical unit. */
+const keepValue: ValueConverter = (v) => v;
+
+/** The converter that multiplies by `k`; a factor of 1 keeps values as they are, exactly. */
+function scaleBy(k: number): ValueConverter {
+  return k === 1 ? keepValue : (v) => v * k;
+}
+
+/**
+ * Whether `convert` (from {@link channelConverter}) leaves every value as it is, so that a loop
+ * over millions of cells may skip the call.
+ */
+export function isIdentityConverter(convert: ValueConverter): boolean {
+  return convert === keepValue;
+}
+
 /**
  * The converter from `unit` to the canonical unit of `channel` (see `CANONICAL_UNITS`), built
  * from the shared unit factors: psi/bar/inHg → kPa, °F/K → °C, ms → s, mph → km/h, AFR → λ
@@ -34,37 +50,31 @@ export function channelConverter(
     throw new Error(`channelConverter: unit "${u}" does not fit channel "${channel}"`);
   }
   switch (channel) {
-    case 'time': {
-      const k = secondsPer(u as TimeUnit);
-      return (v) => v * k;
-    }
+    case 'time':
+      return scaleBy(secondsPer(u as TimeUnit));
     case 'map':
     case 'boost':
-    case 'baro': {
-      const k = kpaPer(u as PressureUnit);
-      return (v) => v * k;
-    }
+    case 'baro':
+      return scaleBy(kpaPer(u as PressureUnit));
     case 'lambda':
     case 'lambdaTarget':
       return mixtureConverter(u as MixtureUnit, stoichAfr);
     case 'iat':
     case 'ect': {
       const t = u as TemperatureUnit;
-      return (v) => toCelsius(v, t);
+      return t === 'C' ? keepValue : (v) => toCelsius(v, t);
     }
-    case 'speed': {
-      const k = kphPer(u as SpeedUnit);
-      return (v) => v * k;
-    }
+    case 'speed':
+      return scaleBy(kphPer(u as SpeedUnit));
     default:
-      return (v) => v;
+      return keepValue;
   }
 }
 
 function mixtureConverter(unit: MixtureUnit, stoichAfr: number): ValueConverter {
   switch (unit) {
     case 'lambda':
-      return (v) => v;
+      return keepValue;
     case 'afr':
       return (v) => lambdaFromAfr(v, stoichAfr);
     case 'phi':

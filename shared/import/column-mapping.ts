@@ -22,6 +22,9 @@ export const DELIMITERS = [',', ';', '\t', '|'] as const;
 /** One CSV delimiter. */
 export type Delimiter = (typeof DELIMITERS)[number];
 
+/** The line breaks the importer reads. */
+export type Newline = '\r\n' | '\n' | '\r';
+
 /** The decimal marks the importer reads. */
 export type DecimalMark = '.' | ',';
 

@@ -1,15 +1,15 @@
 import type { Channel } from '../core/channels';
-import {
-  channelConverter,
-  FLAG_CHANNELS,
-  flagFromWord,
-  type ValueConverter,
-} from './channel-converter';
-import { validateMapping, type ColumnMapping } from './column-mapping';
-import { GrowableColumns } from './growable-columns';
+import { validateMapping, type ColumnMapping, type Newline } from './column-mapping';
 import { ImportError } from './import-error';
-import type { ImportProblem, LogBuildResult } from './log-build-result';
-import { parseDecimal } from './parse-decimal';
+import { encodeAscii, findLineBreak, isBlankLine, LineCells } from './line-cells';
+import type { LogBuildResult } from './log-build-result';
+import {
+  channelsToRead,
+  resolveLogInputs,
+  validateLogBuilderOptions,
+  type LogInput,
+} from './log-inputs';
+import { RowReader } from './row-reader';
 
 /** Options of {@link createLogBuilder}. */
 export interface LogBuilderOptions {
@@ -29,68 +29,14 @@ export interface LogBuilderOptions {
 export interface LogBuilder {
   /** Adds rows; `rows[i]` is line `firstRowNumber + i` of the file. */
   pushRows(rows: readonly (readonly string[])[], firstRowNumber: number): void;
+  /**
+   * Adds the lines of `text`, which holds no double quote, with the same result as `pushRows`
+   * of `text.split(newline)` with each line split on the mapping's delimiter, but without making
+   * a string per cell. Line i is line `firstRowNumber + i` of the file. Returns the line count.
+   */
+  pushUnquotedLines(text: string, newline: Newline, firstRowNumber: number): number;
   /** Ends the import; throws an ImportError when no usable sample came out. */
   finish(): LogBuildResult;
-}
-
-interface Input {
-  readonly channel: Channel;
-  readonly column: string;
-  readonly index: number;
-  readonly convert: ValueConverter;
-  readonly isRequired: boolean;
-  readonly isFlag: boolean;
-}
-
-const REQUIRED_INPUTS: ReadonlySet<Channel> = new Set([
-  'time',
-  'rpm',
-  'map',
-  'boost',
-  'lambda',
-  'lambdaTarget',
-]);
-
-function validateOptions(options: LogBuilderOptions): void {
-  const { stoichAfr, baroKpa, maxProblems, mostlyBadFraction } = options;
-  if (!(stoichAfr > 0 && Number.isFinite(stoichAfr))) {
-    throw new Error('createLogBuilder: options.stoichAfr must be a positive number');
-  }
-  if (baroKpa !== undefined && !(baroKpa > 0 && Number.isFinite(baroKpa))) {
-    throw new Error('createLogBuilder: options.baroKpa must be a positive number of kPa');
-  }
-  if (maxProblems !== undefined && !(Number.isInteger(maxProblems) && maxProblems >= 0)) {
-    throw new Error('createLogBuilder: options.maxProblems must be an integer ≥ 0');
-  }
-  if (mostlyBadFraction !== undefined && !(mostlyBadFraction >= 0 && mostlyBadFraction <= 1)) {
-    throw new Error('createLogBuilder: options.mostlyBadFraction must be within 0–1');
-  }
-}
-
-/** The channels a mapping feeds, boost left out when MAP is there; throws on missing ones. */
-function channelsToRead(mapping: ColumnMapping, options: LogBuilderOptions): Channel[] {
-  const mapped = (Object.keys(mapping.channels) as Channel[]).filter((c) => mapping.channels[c]);
-  const has = (c: Channel): boolean => mapped.includes(c);
-  const missing: string[] = (['time', 'rpm'] as const).filter((c) => !has(c));
-  if (!has('map') && !has('boost')) missing.push('map');
-  if (!has('map') && has('boost') && !has('baro') && options.baroKpa === undefined)
-    missing.push('baro');
-  missing.push(...(['lambda', 'lambdaTarget'] as const).filter((c) => !has(c)));
-  if (missing.length > 0) {
-    throw new ImportError(
-      'missing_channels',
-      `required channels not mapped: ${missing.join(', ')}`,
-      { missing },
-    );
-  }
-  return has('map') ? mapped.filter((c) => c !== 'boost') : mapped;
-}
-
-function findColumn(header: readonly string[], name: string): number {
-  const exact = header.findIndex((h) => h.trim() === name.trim());
-  if (exact >= 0) return exact;
-  const folded = name.trim().toLowerCase();
-  return header.findIndex((h) => h.trim().toLowerCase() === folded);
 }
 
 /**
@@ -104,180 +50,193 @@ function findColumn(header: readonly string[], name: string): number {
  */
 export function createLogBuilder(mapping: ColumnMapping, options: LogBuilderOptions): LogBuilder {
   validateMapping(mapping);
-  validateOptions(options);
+  validateLogBuilderOptions(options);
   const channels = channelsToRead(mapping, options);
-  const { stoichAfr, baroKpa = NaN, maxProblems = 1000, mostlyBadFraction = 0.5 } = options;
+  const { baroKpa = NaN, maxProblems = 1000, mostlyBadFraction = 0.5 } = options;
   const decimal = mapping.decimal ?? '.';
+  const delimiter = mapping.delimiter ?? ',';
+  const delimiterCode = delimiter.charCodeAt(0);
   const headerRow = mapping.headerRow;
   const unitsRow = mapping.unitsRow ?? null;
   if (options.columns === undefined && headerRow === undefined) {
     throw new Error('createLogBuilder: mapping.headerRow or options.columns is required');
   }
-  const foldsBoost = channels.includes('boost');
   const outputs: Channel[] = channels.map((c) => (c === 'boost' ? 'map' : c));
-  const store = new GrowableColumns(outputs.length);
-  const scratch = new Float64Array(channels.length);
-  const timeSlot = channels.indexOf('time');
-  const boostSlot = channels.indexOf('boost');
-  const baroSlot = channels.indexOf('baro');
-  const problems: ImportProblem[] = [];
-  let inputs: Input[] | null = null;
-  let problemCount = 0;
+  const reader = new RowReader(channels, { decimal, baroKpa, maxProblems });
+  let inputs: LogInput[] | null = null;
+  /** Where each column's value goes when lines are scanned; null when they cannot be. */
+  let slots: Int32Array | null = null;
+  let cells: LineCells | null = null;
+  let cellsNewline: Newline = '\n';
+  let byteBuffer = new Uint8Array(0);
   let rowsRead = 0;
   let blankRows = 0;
   let pendingBlankRows = 0;
-  let droppedUnreadable = 0;
-  let droppedTimeBack = 0;
   let isFinished = false;
 
-  const report = (row: number, input: Input, message: string): void => {
-    problemCount++;
-    if (problems.length < maxProblems) {
-      problems.push({ row, column: input.column, channel: input.channel, message });
+  const useHeader = (header: readonly string[]): void => {
+    const resolved = resolveLogInputs(header, channels, mapping, options);
+    inputs = resolved;
+    // Scanning puts each column in one slot and reads the decimal mark as part of a number, so
+    // a column feeding two channels, or a decimal comma that is also the delimiter, is split.
+    const columns = new Int32Array(Math.max(...resolved.map((i) => i.index)) + 1).fill(-1);
+    resolved.forEach((input, k) => (columns[input.index] = columns[input.index] === -1 ? k : -2));
+    slots = delimiter !== decimal && !columns.includes(-2) ? columns : null;
+  };
+  if (options.columns !== undefined) useHeader(options.columns);
+
+  const lineCells = (newline: Newline): LineCells => {
+    if (cells === null || cellsNewline !== newline) {
+      cells = new LineCells(slots as Int32Array, reader.values, delimiter, decimal, newline);
+      cellsNewline = newline;
+    }
+    return cells;
+  };
+
+  /** Any row: header, units row, blank or data. */
+  const acceptRow = (row: readonly string[], rowNumber: number): void => {
+    if (headerRow !== undefined && rowNumber <= headerRow) {
+      if (rowNumber === headerRow && inputs === null)
+        useHeader(row.map((c) => c.replace(/^\uFEFF/, '').trim()));
+      return;
+    }
+    if (rowNumber === unitsRow) return;
+    if (inputs === null) {
+      throw new Error(`LogBuilder.pushRows: row ${rowNumber} came before the header row`);
+    }
+    if (row.every((cell) => cell.trim() === '')) {
+      pendingBlankRows++;
+      return;
+    }
+    countDataRow();
+    reader.readRow(row, rowNumber, inputs);
+  };
+
+  /** Blank lines count once data follows them, so a file's final line break never does. */
+  const countDataRow = (): void => {
+    blankRows += pendingBlankRows;
+    pendingBlankRows = 0;
+    rowsRead++;
+  };
+
+  const isScannedRow = (rowNumber: number): boolean =>
+    slots !== null && (headerRow === undefined || rowNumber > headerRow) && rowNumber !== unitsRow;
+
+  /** Pushes the lines of `text` row by row; returns the line count. */
+  const pushSplitLines = (text: string, newline: Newline, firstRowNumber: number): number => {
+    let rowNumber = firstRowNumber;
+    for (let at = 0; ;) {
+      const found = text.indexOf(newline, at);
+      const end = found < 0 ? text.length : found;
+      acceptRow(text.slice(at, end).split(delimiter), rowNumber++);
+      if (found < 0) return rowNumber - firstRowNumber;
+      at = found + newline.length;
     }
   };
 
-  const resolveHeader = (header: readonly string[]): Input[] => {
-    const resolved = channels.map((channel): Input => {
-      const entry = mapping.channels[channel];
-      const column = entry?.column ?? '';
-      return {
-        channel,
-        column,
-        index: findColumn(header, column),
-        convert: channelConverter(channel, entry?.unit, stoichAfr),
-        isRequired:
-          REQUIRED_INPUTS.has(channel) ||
-          (channel === 'baro' && foldsBoost && Number.isNaN(baroKpa)),
-        isFlag: FLAG_CHANNELS.has(channel),
-      };
-    });
-    const unknown = resolved.filter((i) => i.index < 0).map((i) => i.column);
-    if (unknown.length > 0) {
-      throw new ImportError(
-        'unknown_column',
-        `mapped columns not in the header: ${unknown.join(', ')}`,
-        {
-          missing: unknown,
-          row: headerRow,
-        },
-      );
-    }
-    return resolved;
-  };
-  if (options.columns !== undefined) inputs = resolveHeader(options.columns);
-
-  /** Reads one cell into the scratch slot; false when a required value is unreadable. */
-  const readCell = (
-    row: readonly string[],
-    rowNumber: number,
-    slot: number,
-    input: Input,
-  ): boolean => {
-    const text = row[input.index] ?? '';
-    let value = parseDecimal(text, decimal);
-    if (input.isFlag && Number.isNaN(value)) value = flagFromWord(text);
-    if (input.isFlag && value !== 0 && value !== 1 && !Number.isNaN(value)) {
-      report(rowNumber, input, `flag is ${text.trim()}, not 0 or 1`);
-      value = NaN;
-    } else if (Number.isNaN(value)) {
-      const isEmpty = text.trim() === '';
-      // An empty optional cell is an unlogged sample, not a fault; garbage always is.
-      if (!isEmpty || input.isRequired)
-        report(rowNumber, input, isEmpty ? 'empty' : `not a number: "${text.trim()}"`);
-    } else value = input.convert(value);
-    scratch[slot] = value;
-    return !(input.isRequired && !Number.isFinite(value));
-  };
-
-  const pushRow = (row: readonly string[], rowNumber: number, active: Input[]): void => {
-    let isReadable = true;
-    for (let k = 0; k < active.length; k++) {
-      // Every cell is read even after a failure so that each bad cell is reported.
-      if (!readCell(row, rowNumber, k, active[k] as Input)) isReadable = false;
-    }
-    if (isReadable && foldsBoost) {
-      const baro =
-        baroSlot >= 0 && Number.isFinite(scratch[baroSlot])
-          ? (scratch[baroSlot] as number)
-          : baroKpa;
-      scratch[boostSlot] = (scratch[boostSlot] as number) + baro;
-      if (!Number.isFinite(scratch[boostSlot])) {
-        report(rowNumber, active[baroSlot] as Input, 'no barometer for gauge boost');
-        isReadable = false;
+  /** Pushes the lines of an ASCII `text` scanned as its `bytes`; returns the line count. */
+  const pushByteLines = (
+    text: string,
+    bytes: Uint8Array,
+    newline: Newline,
+    firstRowNumber: number,
+  ): number => {
+    const scanner = lineCells(newline);
+    const active = inputs as LogInput[];
+    const length = bytes.length;
+    let rowNumber = firstRowNumber;
+    for (let at = 0; ; rowNumber++) {
+      let end: number;
+      const first = at < length ? (bytes[at] as number) : -1;
+      if (isScannedRow(rowNumber) && first > 32 && first < 127 && first !== delimiterCode) {
+        // A printable first character: not blank, so the scan finds the line's end itself.
+        end = scanner.scan(bytes, at, length);
+        countDataRow();
+        reader.readScanned(text, rowNumber, active, scanner);
+      } else {
+        const found = findLineBreak(bytes, at, newline);
+        end = found < 0 ? length : found;
+        if (!isScannedRow(rowNumber)) acceptRow(text.slice(at, end).split(delimiter), rowNumber);
+        else if (isBlankLine(bytes, at, end, delimiterCode)) pendingBlankRows++;
+        else {
+          scanner.scan(bytes, at, end);
+          countDataRow();
+          reader.readScanned(text, rowNumber, active, scanner);
+        }
       }
+      if (end === length) return rowNumber + 1 - firstRowNumber;
+      at = end + newline.length;
     }
-    if (!isReadable) {
-      droppedUnreadable++;
-      return;
+  };
+
+  const checkOpen = (name: string): void => {
+    if (isFinished) throw new Error(`LogBuilder.${name}: the builder has finished`);
+  };
+  const checkRowNumber = (name: string, firstRowNumber: number): void => {
+    if (!Number.isInteger(firstRowNumber) || firstRowNumber < 0) {
+      throw new Error(`LogBuilder.${name}: firstRowNumber must be an integer ≥ 0`);
     }
-    const time = scratch[timeSlot] as number;
-    const lastTime = store.last(timeSlot);
-    if (time < lastTime) {
-      report(
-        rowNumber,
-        active[timeSlot] as Input,
-        `time goes back from ${lastTime} s to ${time} s`,
-      );
-      droppedTimeBack++;
-      return;
-    }
-    store.append(scratch);
   };
 
   return {
     pushRows(rows, firstRowNumber) {
-      if (isFinished) throw new Error('LogBuilder.pushRows: the builder has finished');
+      checkOpen('pushRows');
       if (!Array.isArray(rows)) throw new Error('LogBuilder.pushRows: rows must be an array');
-      if (!Number.isInteger(firstRowNumber) || firstRowNumber < 0) {
-        throw new Error('LogBuilder.pushRows: firstRowNumber must be an integer ≥ 0');
+      checkRowNumber('pushRows', firstRowNumber);
+      for (let i = 0; i < rows.length; i++) acceptRow(rows[i], firstRowNumber + i);
+    },
+    pushUnquotedLines(text, newline, firstRowNumber) {
+      checkOpen('pushUnquotedLines');
+      checkRowNumber('pushUnquotedLines', firstRowNumber);
+      if (typeof text !== 'string') {
+        throw new Error('LogBuilder.pushUnquotedLines: text must be a string');
       }
-      for (let i = 0; i < rows.length; i++) {
-        const row = rows[i] as readonly string[];
-        const rowNumber = firstRowNumber + i;
-        if (headerRow !== undefined && rowNumber <= headerRow) {
-          if (rowNumber === headerRow && inputs === null)
-            inputs = resolveHeader(row.map((c) => c.replace(/^\uFEFF/, '').trim()));
-          continue;
-        }
-        if (rowNumber === unitsRow) continue;
-        if (inputs === null) {
-          throw new Error(`LogBuilder.pushRows: row ${rowNumber} came before the header row`);
-        }
-        if (row.every((cell) => cell.trim() === '')) {
-          pendingBlankRows++;
-          continue;
-        }
-        // Blank lines count once data follows them, so a file's final line break never does.
-        blankRows += pendingBlankRows;
-        pendingBlankRows = 0;
-        rowsRead++;
-        pushRow(row, rowNumber, inputs);
+      if (newline !== '\n' && newline !== '\r\n' && newline !== '\r') {
+        throw new Error('LogBuilder.pushUnquotedLines: newline must be \\n, \\r\\n or \\r');
       }
+      // Preamble, header and units row go row by row; from the first data line on, the lines
+      // are scanned as bytes when the text is ASCII, else split as papaparse would.
+      let rowNumber = firstRowNumber;
+      let at = 0;
+      while (!isScannedRow(rowNumber)) {
+        const found = text.indexOf(newline, at);
+        const end = found < 0 ? text.length : found;
+        acceptRow(text.slice(at, end).split(delimiter), rowNumber++);
+        if (found < 0) return rowNumber - firstRowNumber;
+        at = found + newline.length;
+      }
+      const rest = at === 0 ? text : text.slice(at);
+      if (byteBuffer.length < rest.length) byteBuffer = new Uint8Array(rest.length * 1.25);
+      const bytes = encodeAscii(rest, byteBuffer);
+      const lines = bytes
+        ? pushByteLines(rest, bytes, newline, rowNumber)
+        : pushSplitLines(rest, newline, rowNumber);
+      return rowNumber - firstRowNumber + lines;
     },
     finish() {
       isFinished = true;
       if (inputs === null)
         throw new ImportError('no_header', 'the header row was never reached', { row: headerRow });
       if (rowsRead === 0) throw new ImportError('no_data', 'the file has no data rows');
-      if (store.length === 0) {
-        const first = problems[0];
+      const length = reader.length;
+      if (length === 0) {
+        const first = reader.problems[0];
         throw new ImportError('no_usable_rows', `none of the ${rowsRead} rows could be read`, {
           row: first?.row,
           column: first?.column,
         });
       }
-      const arrays = store.toArrays();
+      const arrays = reader.takeArrays();
       const log: Partial<Record<Channel, Float64Array>> = {};
       outputs.forEach((channel, k) => (log[channel] = arrays[k]));
-      const dropped = droppedUnreadable + droppedTimeBack;
-      const droppedFraction = dropped / rowsRead;
+      const { droppedUnreadable, droppedTimeBack, problemCount } = reader;
+      const droppedFraction = (droppedUnreadable + droppedTimeBack) / rowsRead;
       return {
-        log: { length: store.length, channels: log },
-        problems: [...problems],
+        log: { length, channels: log },
+        problems: [...reader.problems],
         stats: {
           rowsRead,
-          rowsKept: store.length,
+          rowsKept: length,
           rowsDroppedUnreadable: droppedUnreadable,
           rowsDroppedTimeBack: droppedTimeBack,
           blankRows,
