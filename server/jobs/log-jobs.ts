@@ -31,7 +31,7 @@ export interface LogJobsOptions {
   config: Pick<AppConfig, 'dataDir' | 'databaseUrl'>;
   /** PostgreSQL schema pg-boss keeps its tables in (default `pgboss`; tests use their own). */
   schema?: string;
-  /** How often an idle worker looks for jobs, seconds (default 2; a new upload wakes it). */
+  /** How often an idle worker looks for jobs, seconds (default 0.5; a new upload wakes it). */
   pollingIntervalSeconds?: number;
   /** Attempts after the first (default 2). */
   retryLimit?: number;
@@ -55,7 +55,8 @@ const parseTargetSchema = z.object({ shopId: z.uuid(), logId: z.uuid() });
 export async function startLogJobs(options: LogJobsOptions): Promise<LogJobRunner> {
   const { db, config } = options;
   const retryLimit = options.retryLimit ?? 2;
-  const pollingIntervalSeconds = options.pollingIntervalSeconds ?? 2;
+  // pg-boss's shortest poll: a new log waits at most half a second for its parse to start.
+  const pollingIntervalSeconds = options.pollingIntervalSeconds ?? 0.5;
   const sendOptions: PgBoss.SendOptions = {
     retryLimit,
     retryDelay: options.retryDelaySeconds ?? 10,
