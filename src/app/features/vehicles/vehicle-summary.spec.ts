@@ -18,7 +18,7 @@ const vehicle = {
 describe('vehicle summaries', () => {
   it.each([
     [engineSummary, '1.6 L · 4 cylinders · 440 cc/min injectors'],
-    [fuelSummary, 'gasoline (AFR 14.7)'],
+    [fuelSummary, 'Gasoline (AFR 14.7)'],
     [gearingSummary, '6 gears · final drive 4.06 · tyre 632 mm'],
   ])('%p says it in one line', (summary, expected) => {
     expect(summary(vehicle)).toBe(expected);

@@ -7,6 +7,11 @@ const vehiclesRoutes: Routes = [
     title: 'Vehicles · Cellsmith',
     loadComponent: () => import('./vehicles-page'),
   },
+  {
+    path: ':id',
+    title: 'Vehicle · Cellsmith',
+    loadComponent: () => import('./vehicle-page'),
+  },
 ];
 
 export default vehiclesRoutes;

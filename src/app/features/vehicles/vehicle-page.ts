@@ -1,0 +1,123 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { canEnterArea } from '@shared/auth/access';
+import type { RevisionSummary } from '@shared/contracts/tables';
+import type { Vehicle } from '@shared/contracts/vehicles';
+import { forkJoin, map, of } from 'rxjs';
+import { apiErrorMessage, isHttpStatus } from '../../core/api/api-error';
+import { VehiclesApi } from '../../core/api/vehicles-api';
+import { Session } from '../../core/auth/session';
+import { VehicleDialog, type VehicleDialogData } from './vehicle-dialog';
+import { FUEL_LABELS } from './vehicle-form';
+import { VehicleLogs } from './vehicle-logs';
+import { canEditVehicles } from './vehicle-roles';
+import { VehicleTableCards } from './vehicle-table-cards';
+
+/** One vehicle: its engine, fuel and gearing, its VE tables with their latest revisions, its logs. */
+@Component({
+  selector: 'app-vehicle-page',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [
+    RouterLink,
+    MatButtonModule,
+    MatCardModule,
+    MatIconModule,
+    MatProgressBarModule,
+    VehicleLogs,
+    VehicleTableCards,
+  ],
+  templateUrl: './vehicle-page.html',
+  styleUrl: './vehicle-page.scss',
+})
+export class VehiclePage {
+  private readonly api = inject(VehiclesApi);
+  private readonly session = inject(Session);
+  private readonly dialog = inject(MatDialog);
+
+  /** The vehicle's id, from the route. */
+  readonly id = input.required<string>();
+
+  /** The vehicle. */
+  protected readonly vehicle = rxResource({
+    params: () => this.id(),
+    stream: ({ params }) => this.api.get(params),
+  });
+
+  /** Its VE tables, oldest first. */
+  protected readonly tables = rxResource({
+    params: () => this.id(),
+    stream: ({ params }) => this.api.tables(params).pipe(map((res) => res.items)),
+    defaultValue: [],
+  });
+
+  /** Its logs, newest first. */
+  protected readonly logs = rxResource({
+    params: () => this.id(),
+    stream: ({ params }) => this.api.logs(params).pipe(map((res) => res.items)),
+    defaultValue: [],
+  });
+
+  /** Each table's revisions by table id, fetched once the tables are known. */
+  protected readonly revisions = rxResource({
+    params: () => this.tables.value().map((table) => table.id),
+    stream: ({ params }) =>
+      params.length === 0
+        ? of({})
+        : forkJoin(
+            params.map((tableId) =>
+              this.api
+                .tableRevisions(tableId)
+                .pipe(map((res) => [tableId, res.items] as [string, RevisionSummary[]])),
+            ),
+          ).pipe(map((pairs) => Object.fromEntries(pairs))),
+    defaultValue: {} as Readonly<Record<string, RevisionSummary[]>>,
+  });
+
+  /** Whether the vehicle does not exist in this shop. */
+  protected readonly isMissing = computed(() => isHttpStatus(this.vehicle.error(), 404));
+
+  /** Why something could not be read, other than a missing vehicle. */
+  protected readonly loadError = computed(() => {
+    const error = this.vehicle.error() ?? this.tables.error() ?? this.logs.error();
+    if (error === undefined || isHttpStatus(error, 404)) return null;
+    return apiErrorMessage(error, 'This vehicle could not be loaded.');
+  });
+
+  /** Whether the signed-in member may change the vehicle. */
+  protected readonly canEdit = computed(() => canEditVehicles(this.session.user()?.roles ?? []));
+
+  /** Whether the member may open the table workspace. */
+  protected readonly canOpenTables = computed(() =>
+    canEnterArea(this.session.user()?.roles ?? [], 'tables'),
+  );
+
+  /** Fuel names. */
+  protected readonly fuelLabels = FUEL_LABELS;
+
+  /** Opens the dialog on the vehicle; the saved vehicle replaces the one shown. */
+  protected openEditDialog(vehicle: Vehicle): void {
+    this.dialog
+      .open<VehicleDialog, VehicleDialogData, Vehicle>(VehicleDialog, {
+        data: { vehicle },
+        autoFocus: 'first-tabbable',
+        maxWidth: '95vw',
+      })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (saved !== undefined) this.vehicle.set(saved);
+      });
+  }
+
+  /** Reads the logs again (their parse state moves on the server). */
+  protected reloadLogs(): void {
+    this.logs.reload();
+  }
+}
+
+export default VehiclePage;
