@@ -1,0 +1,120 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import type { Observable } from 'rxjs';
+import type { ApplyAnalysisRequest, CreateAnalysisRequest } from '@shared/contracts/analyses';
+import type { Revision } from '@shared/contracts/tables';
+
+/** The results of one cell of an analysis (null figures where the cell saw no data). */
+export interface AnalysisCell {
+  /** Samples touching the cell. */
+  samples: number;
+  /** Total bilinear weight (the cell's coverage). */
+  weight: number;
+  /** Weighted mean correction ratio. */
+  ratio: number | null;
+  /** Weighted spread of the ratio. */
+  spread: number | null;
+  /** Effective sample count. */
+  effectiveCount: number;
+  /** Weighted mean lambda error in %, positive = leaner than commanded. */
+  lambdaErrorPct: number | null;
+  /** Worst lean excursion under load, %. */
+  worstLeanPct: number | null;
+  /** Mean measured lambda. */
+  lambdaMeasured: number | null;
+  /** Mean commanded lambda. */
+  lambdaCommanded: number | null;
+  /** Proposed VE at the analysis's step fraction. */
+  proposal: number | null;
+  /** Proposed change of VE in %, positive = VE up. */
+  changePct: number | null;
+  /** `trusted`, `too_little_data`, `locked` or `no_data`. */
+  status: string;
+}
+
+/** One line of a log's filter funnel. */
+export interface FunnelLine {
+  /** The rule's kind. */
+  rule: string;
+  /** The rule in words, with its limits. */
+  label: string;
+  /** `skipped` when the log lacks a channel the rule needs. */
+  status: 'applied' | 'skipped';
+  /** Samples this rule removed. */
+  removed: number;
+  /** Samples still kept after it. */
+  remaining: number;
+}
+
+/** What one log contributed to an analysis. */
+export interface LogFilterReport {
+  /** The log. */
+  logId: string;
+  /** Samples in the log. */
+  samples: number;
+  /** Samples kept by the filters. */
+  kept: number;
+  /** The filter funnel, rule by rule. */
+  funnel: FunnelLine[];
+  /** The wideband delay applied. */
+  delayUsed: { tau0S: number; kGrams: number; source: 'estimate' | 'settings' };
+}
+
+/** A cell measured leaner than commanded under load. */
+export interface LeanFlag {
+  /** Row (MAP breakpoint index). */
+  row: number;
+  /** Column (RPM breakpoint index). */
+  col: number;
+  /** The cell's RPM breakpoint. */
+  rpm: number;
+  /** The cell's MAP breakpoint, kPa. */
+  mapKpa: number;
+  /** Weighted mean lean error, %. */
+  leanPercent: number;
+  /** Worst single lean excursion, % (null when no sample under load touched it). */
+  worstLeanPercent: number | null;
+  /** `abort` at the abort limit, else `warn`. */
+  severity: 'warn' | 'abort';
+}
+
+/** An analysis as `POST /api/tables/:id/analyses` and `GET /api/analyses/:id` answer it. */
+export interface AnalysisResource {
+  /** The analysis id. */
+  id: string;
+  /** Its table. */
+  tableId: string;
+  /** The revision the proposal starts from. */
+  baseRevisionId: string;
+  /** The logs analysed. */
+  logIds: string[];
+  /** Per-cell results `[row][col]`. */
+  cells: AnalysisCell[][];
+  /** Proposed VE `[row][col]`. */
+  proposal: (number | null)[][];
+  /** Per log: samples, kept, funnel and delay used. */
+  filterReport: { logs: LogFilterReport[]; samplesUsed?: number; cellsTrusted?: number };
+  /** Cells measured leaner than commanded under load, worst first. */
+  leanFlags: LeanFlag[];
+  /** When it ran. */
+  createdAt: string;
+}
+
+/** HTTP client of analyses: running one over logs, and applying one as a draft revision. */
+@Injectable({ providedIn: 'root' })
+export class AnalysesApi {
+  private readonly http = inject(HttpClient);
+
+  /** `POST /api/tables/:id/analyses`. */
+  run(tableId: string, body: CreateAnalysisRequest): Observable<AnalysisResource> {
+    return this.http.post<AnalysisResource>(
+      `/api/tables/${encodeURIComponent(tableId)}/analyses`,
+      body,
+    );
+  }
+
+  /** `POST /api/analyses/:id/apply`: a new draft revision (parent: the analysis's base). */
+  apply(analysisId: string, body: ApplyAnalysisRequest): Observable<Revision> {
+    return this.http.post<Revision>(`/api/analyses/${encodeURIComponent(analysisId)}/apply`, body);
+  }
+}

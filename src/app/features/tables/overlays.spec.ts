@@ -1,0 +1,140 @@
+import type { AnalysisCell, AnalysisResource } from '../../core/api/analyses-api';
+import { TEXT_ON_DARK, TEXT_ON_LIGHT } from '../../shared/ui/colour-scale';
+import { overlayView, signedFigure, type OverlayKind } from './overlays';
+
+const VALUES = [
+  [50, 60],
+  [70, 80],
+];
+
+function cell(partial: Partial<AnalysisCell>): AnalysisCell {
+  return {
+    samples: 0,
+    weight: 0,
+    ratio: null,
+    spread: null,
+    effectiveCount: 0,
+    lambdaErrorPct: null,
+    worstLeanPct: null,
+    lambdaMeasured: null,
+    lambdaCommanded: null,
+    proposal: null,
+    changePct: null,
+    status: 'no_data',
+    ...partial,
+  };
+}
+
+const ANALYSIS: AnalysisResource = {
+  id: 'a1',
+  tableId: 't1',
+  baseRevisionId: 'r1',
+  logIds: ['l1'],
+  cells: [
+    [cell({ weight: 12, lambdaErrorPct: 4.24, changePct: 4.2 }), cell({})],
+    [cell({ weight: 3, lambdaErrorPct: -3.06, changePct: -3.1 }), cell({ weight: 40 })],
+  ],
+  proposal: [
+    [52.1, null],
+    [67.8, 80],
+  ],
+  filterReport: { logs: [] },
+  leanFlags: [
+    {
+      row: 0,
+      col: 0,
+      rpm: 3000,
+      mapKpa: 100,
+      leanPercent: 6,
+      worstLeanPercent: null,
+      severity: 'warn',
+    },
+  ],
+  createdAt: '2026-01-01T00:00:00Z',
+};
+
+function view(kind: OverlayKind, values = VALUES) {
+  return overlayView({ kind, values, baseValues: VALUES, analysis: ANALYSIS });
+}
+
+describe('signedFigure', () => {
+  it.each([
+    [4.24, '▲ +4.2'],
+    [-3.06, '▼ −3.1'],
+    [0, '0.0'],
+    [0.04, '0.0'],
+    [-0.04, '0.0'],
+    [12.96, '▲ +13.0'],
+  ])('When the value is %d, then the text is %j', (value, text) => {
+    expect(signedFigure(value)).toBe(text);
+  });
+});
+
+describe('overlayView', () => {
+  it.each([
+    ['ve', ['50.0', '60.0', '70.0', '80.0']],
+    ['coverage', ['12.0', '–', '3.0', '40.0']],
+    ['lambdaError', ['▲ +4.2', '–', '▼ −3.1', '–']],
+    ['proposal', ['52.1', '–', '67.8', '80.0']],
+    ['change', ['▲ +4.2', '–', '▼ −3.1', '–']],
+  ] as const)('When the overlay is %s, then the cells read %j', (kind, texts) => {
+    expect(
+      view(kind)
+        .cells.flat()
+        .map((c) => c.text),
+    ).toEqual(texts);
+  });
+
+  it('When a cell has no number, then it has no colour', () => {
+    const empty = view('lambdaError').cells[0][1];
+    expect(empty).toMatchObject({ value: null, background: null, foreground: null });
+  });
+
+  it('When the VE view is coloured, then the lowest is dark with light text, the highest pale', () => {
+    const cells = view('ve').cells.flat();
+    expect(cells[0]).toMatchObject({ background: '#1b2f63', foreground: TEXT_ON_DARK });
+    expect(cells[3]).toMatchObject({ background: '#eef6e6', foreground: TEXT_ON_LIGHT });
+  });
+
+  it('When lean and rich cells are shown, then lean is orange-side and rich blue-side', () => {
+    const [lean, , rich] = view('lambdaError').cells.flat();
+    const red = (hex: string | null) => parseInt((hex ?? '#000000').slice(1, 3), 16);
+    const blue = (hex: string | null) => parseInt((hex ?? '#000000').slice(5, 7), 16);
+    expect(red(lean.background)).toBeGreaterThan(blue(lean.background));
+    expect(blue(rich.background)).toBeGreaterThan(red(rich.background));
+  });
+
+  it('When VE goes up in the change view, then it takes the rich (blue) side with ▲', () => {
+    const up = view('change').cells[0][0];
+    const channel = (at: number) => parseInt((up.background ?? '#000000').slice(at, at + 2), 16);
+    expect(channel(5)).toBeGreaterThan(channel(1));
+    expect(up.text.startsWith('▲ +')).toBe(true);
+  });
+
+  it('When the analysis flags a cell, then only that cell is marked, in every overlay', () => {
+    for (const kind of ['ve', 'coverage'] as const) {
+      expect(
+        view(kind)
+          .cells.flat()
+          .map((c) => c.isLeanFlag),
+      ).toEqual([true, false, false, false]);
+    }
+  });
+
+  it('When a value differs from the loaded revision, then the cell is marked edited', () => {
+    const edited = view('ve', [
+      [50, 61],
+      [70, 80],
+    ]);
+    expect(edited.cells.flat().map((c) => c.isEdited)).toEqual([false, true, false, false]);
+  });
+
+  it.each([
+    ['ve', '50.0 VE %', '80.0 VE %'],
+    ['proposal', '50.0 VE %', '80.0 VE %'],
+    ['coverage', '0 weight', '40 weight'],
+    ['lambdaError', '▼ −10 % richer', '▲ +10 % leaner'],
+  ] as const)('When the overlay is %s, then the legend runs from %j to %j', (kind, low, high) => {
+    expect(view(kind).legend).toMatchObject({ low, high });
+  });
+});

@@ -1,0 +1,131 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { TableStore } from './table-store';
+
+const TABLE = {
+  id: 't1',
+  vehicleId: 'v1',
+  name: 'Main VE',
+  rpmAxis: [1000, 2000],
+  mapAxisKpa: [30, 100],
+  headRevisionId: 'r1',
+  createdAt: '2026-01-01T00:00:00Z',
+};
+const REVISION = {
+  id: 'r1',
+  tableId: 't1',
+  parentId: null,
+  number: 1,
+  status: 'draft',
+  message: 'Initial table',
+  authorId: 'u1',
+  authorName: 'Demo Tuner',
+  analysisId: null,
+  createdAt: '2026-01-01T00:00:00Z',
+  values: [
+    [40, 50],
+    [80, 90],
+  ],
+};
+
+describe('TableStore', () => {
+  let store: TableStore;
+  let http: HttpTestingController;
+  let snack: jest.Mock;
+
+  beforeEach(() => {
+    snack = jest.fn();
+    TestBed.configureTestingModule({
+      providers: [
+        TableStore,
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MatSnackBar, useValue: { open: snack } },
+      ],
+    });
+    store = TestBed.inject(TableStore);
+    http = TestBed.inject(HttpTestingController);
+    store.load('t1');
+    http.expectOne('/api/tables/t1').flush(TABLE);
+    http.expectOne('/api/vehicles/v1').flush({ id: 'v1', label: 'Demo hatch' });
+    http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 1 });
+    http.expectOne('/api/revisions/r1').flush(REVISION);
+    http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
+  });
+
+  afterEach(() => http.verify());
+
+  it('When the table loads, then the head revision’s values are shown and nothing is dirty', () => {
+    expect(store.values()).toEqual(REVISION.values);
+    expect([store.busy(), store.isDirty(), store.canUndo(), store.canRedo()]).toEqual([
+      null,
+      false,
+      false,
+      false,
+    ]);
+  });
+
+  it.each([
+    ['abc', '“abc” is not a number. Type a VE value in percent.'],
+    ['0', 'VE must be between 1 and 300 %; 0 is outside.'],
+    ['301', 'VE must be between 1 and 300 %; 301 is outside.'],
+    ['', 'Type a VE value between 1 and 300 %.'],
+  ])('When %j is typed, then it is refused with %j and nothing changes', (raw, message) => {
+    expect(store.edit(0, 1, raw)).toBe(message);
+    expect(store.values()).toEqual(REVISION.values);
+    expect(store.canUndo()).toBe(false);
+  });
+
+  it('When a valid value is typed, then the cell changes and can be undone and redone', () => {
+    expect(store.edit(0, 1, '55,5')).toBeNull();
+    expect(store.values()[0][1]).toBe(55.5);
+    expect(store.isDirty()).toBe(true);
+
+    store.undo();
+    expect(store.values()).toEqual(REVISION.values);
+    expect([store.isDirty(), store.canUndo(), store.canRedo()]).toEqual([false, false, true]);
+
+    store.redo();
+    expect(store.values()[0][1]).toBe(55.5);
+    expect([store.canUndo(), store.canRedo()]).toEqual([true, false]);
+  });
+
+  it('When two edits are undone one by one, then they come back newest first', () => {
+    store.edit(0, 0, '41');
+    store.edit(1, 1, '91');
+    store.undo();
+    expect(store.values()).toEqual([
+      [41, 50],
+      [80, 90],
+    ]);
+    store.undo();
+    expect(store.values()).toEqual(REVISION.values);
+  });
+
+  it('When the edits are saved, then the revision is posted on its parent and announced', () => {
+    store.edit(1, 0, '85');
+    store.save('richer at idle');
+
+    const post = http.expectOne('/api/tables/t1/revisions');
+    expect(post.request.body).toEqual({
+      parentId: 'r1',
+      values: [
+        [40, 50],
+        [85, 90],
+      ],
+      message: 'richer at idle',
+    });
+    post.flush({ ...REVISION, id: 'r2', number: 2 });
+
+    expect(snack).toHaveBeenCalledWith('Saved as revision 2.', 'OK', { duration: 6000 });
+    http.expectOne('/api/tables/t1').flush({ ...TABLE, headRevisionId: 'r2' });
+    http.expectOne('/api/vehicles/v1').flush({ id: 'v1', label: 'Demo hatch' });
+    http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 2 });
+    http.expectOne('/api/revisions/r2').flush({ ...REVISION, id: 'r2', number: 2 });
+    http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
+    expect(store.revision()?.number).toBe(2);
+    expect(store.canUndo()).toBe(false);
+  });
+});

@@ -1,0 +1,186 @@
+import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import type { LogResource } from '@shared/contracts/logs';
+import type { Revision, RevisionSummary, VeTableResource } from '@shared/contracts/tables';
+import type { Vehicle } from '@shared/contracts/vehicles';
+import { type Observable, forkJoin, map, switchMap, throwError } from 'rxjs';
+import { AnalysesApi, type AnalysisResource } from '../../core/api/analyses-api';
+import { apiErrorMessage } from '../../core/api/api-error';
+import { LogsApi } from '../../core/api/logs-api';
+import { TablesApi } from '../../core/api/tables-api';
+import { VehiclesApi } from '../../core/api/vehicles-api';
+import {
+  EMPTY_HISTORY,
+  type EditHistory,
+  type HistoryStep,
+  applyEdit,
+  redoEdit,
+  undoEdit,
+} from './edit-history';
+import { parseVeInput } from './ve-input';
+
+/** What the workspace is waiting for, if anything. */
+export type TableBusy = 'loading' | 'saving' | 'analysing' | 'applying' | null;
+
+/** Everything loaded for one table. */
+interface Loaded {
+  table: VeTableResource;
+  vehicle: Vehicle;
+  revisions: RevisionSummary[];
+  head: Revision;
+  logs: LogResource[];
+}
+
+/**
+ * State of the table workspace: the table, its revisions, the head revision's values being
+ * edited with an undo/redo history, the vehicle's logs and the latest analysis. Provided by the
+ * workspace page, so it lives and dies with it. Failures are told by snackbar.
+ */
+@Injectable()
+export class TableStore {
+  private readonly tablesApi = inject(TablesApi);
+  private readonly analysesApi = inject(AnalysesApi);
+  private readonly logsApi = inject(LogsApi);
+  private readonly vehiclesApi = inject(VehiclesApi);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly destroyRef = inject(DestroyRef);
+
+  private readonly loaded = signal<Loaded | null>(null);
+  private readonly editedValues = signal<readonly (readonly number[])[]>([]);
+  private readonly editHistory = signal<EditHistory>(EMPTY_HISTORY);
+  private readonly latestAnalysis = signal<AnalysisResource | null>(null);
+  private readonly waitingFor = signal<TableBusy>('loading');
+
+  /** The table (axes, name), null until loaded. */
+  readonly table = computed(() => this.loaded()?.table ?? null);
+  /** The table's vehicle, null until loaded. */
+  readonly vehicle = computed(() => this.loaded()?.vehicle ?? null);
+  /** The table's revisions by number ascending. */
+  readonly revisions = computed(() => this.loaded()?.revisions ?? []);
+  /** The revision being edited (the head), null until loaded. */
+  readonly revision = computed(() => this.loaded()?.head ?? null);
+  /** The VE being edited, `[row][col]`. */
+  readonly values = this.editedValues.asReadonly();
+  /** The vehicle's logs that are parsed and can be analysed. */
+  readonly readyLogs = computed(() =>
+    (this.loaded()?.logs ?? []).filter((log) => log.status === 'ready'),
+  );
+  /** The analysis run in this session on the loaded revision, if any. */
+  readonly analysis = this.latestAnalysis.asReadonly();
+  /** What the workspace waits for. */
+  readonly busy = this.waitingFor.asReadonly();
+  /** Whether there is an edit to undo. */
+  readonly canUndo = computed(() => this.editHistory().past.length > 0);
+  /** Whether there is an undone edit to redo. */
+  readonly canRedo = computed(() => this.editHistory().future.length > 0);
+  /** Whether the values differ from the loaded revision. */
+  readonly isDirty = computed(() => {
+    const saved = this.revision()?.values ?? [];
+    return this.editedValues().some((row, r) => row.some((v, c) => v !== saved[r]?.[c]));
+  });
+
+  /** Loads the table, its vehicle, revisions, the head revision's values and the logs. */
+  load(tableId: string): void {
+    this.waitingFor.set('loading');
+    const request = this.tablesApi.get(tableId).pipe(
+      switchMap((table) => {
+        if (!table.headRevisionId) return throwError(() => new Error('The table has no revision.'));
+        return forkJoin({
+          vehicle: this.vehiclesApi.get(table.vehicleId),
+          revisions: this.tablesApi.revisions(table.id).pipe(map((list) => list.items)),
+          head: this.tablesApi.revision(table.headRevisionId),
+          logs: this.logsApi.listForVehicle(table.vehicleId).pipe(map((list) => list.items)),
+        }).pipe(map((rest) => ({ table, ...rest })));
+      }),
+    );
+    this.run(request, 'The table could not be loaded.', (loaded) => {
+      this.loaded.set(loaded);
+      this.editedValues.set(loaded.head.values);
+      this.editHistory.set(EMPTY_HISTORY);
+      this.latestAnalysis.set(null);
+    });
+  }
+
+  /**
+   * Sets one cell from what the user typed. Returns null when accepted, else the reason it was
+   * refused (the cell keeps its value).
+   */
+  edit(row: number, col: number, raw: unknown): string | null {
+    const input = parseVeInput(raw);
+    if (!input.ok) return input.message;
+    this.step(applyEdit(this.editedValues(), this.editHistory(), row, col, input.value));
+    return null;
+  }
+
+  /** Undoes the newest edit. */
+  undo(): void {
+    this.step(undoEdit(this.editedValues(), this.editHistory()));
+  }
+
+  /** Redoes the edit undone last. */
+  redo(): void {
+    this.step(redoEdit(this.editedValues(), this.editHistory()));
+  }
+
+  /** Saves the values as a new draft revision on top of the loaded one, then reloads. */
+  save(message: string): void {
+    const table = this.table();
+    const parent = this.revision();
+    if (!table || !parent || this.waitingFor()) return;
+    this.waitingFor.set('saving');
+    const body = { parentId: parent.id, values: this.editedValues().map((r) => [...r]), message };
+    this.run(this.tablesApi.createRevision(table.id, body), 'Saving failed.', (revision) =>
+      this.announceAndReload(revision, `Saved as revision ${revision.number}.`),
+    );
+  }
+
+  /** Runs an analysis of `logIds` against the loaded revision. */
+  analyse(logIds: readonly string[]): void {
+    const table = this.table();
+    const base = this.revision();
+    if (!table || !base || logIds.length === 0 || this.waitingFor()) return;
+    this.waitingFor.set('analysing');
+    const body = { baseRevisionId: base.id, logIds: [...logIds] };
+    this.run(this.analysesApi.run(table.id, body), 'The analysis failed.', (analysis) => {
+      this.latestAnalysis.set(analysis);
+    });
+  }
+
+  /** Applies the analysis at `stepFraction` as a new draft revision, then reloads. */
+  applyAnalysis(stepFraction: number, message: string): void {
+    const table = this.table();
+    const analysis = this.latestAnalysis();
+    if (!table || !analysis || this.waitingFor()) return;
+    this.waitingFor.set('applying');
+    const body = { stepFraction, message: message || undefined };
+    this.run(this.analysesApi.apply(analysis.id, body), 'Applying failed.', (revision) =>
+      this.announceAndReload(revision, `Applied as draft revision ${revision.number}.`),
+    );
+  }
+
+  private announceAndReload(revision: Revision, text: string): void {
+    this.snackBar.open(text, 'OK', { duration: 6000 });
+    this.load(revision.tableId);
+  }
+
+  private step(next: HistoryStep): void {
+    this.editedValues.set(next.values);
+    this.editHistory.set(next.history);
+  }
+
+  private run<T>(request: Observable<T>, fallback: string, onSuccess: (value: T) => void): void {
+    request.pipe(takeUntilDestroyed(this.destroyRef)).subscribe({
+      next: (value) => {
+        this.waitingFor.set(null);
+        onSuccess(value);
+      },
+      error: (error: unknown) => {
+        // Our own errors (a table without revisions) carry their sentence; HTTP ones the server's.
+        const text = error instanceof Error ? error.message : apiErrorMessage(error, fallback);
+        this.snackBar.open(text, 'Dismiss', { duration: 8000 });
+        this.waitingFor.set(null);
+      },
+    });
+  }
+}

@@ -1,0 +1,126 @@
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  linkedSignal,
+  signal,
+  untracked,
+} from '@angular/core';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { RouterLink } from '@angular/router';
+import { Session } from '../../core/auth/session';
+import { AnalysisPanel, type ApplyRequest } from './analysis-panel';
+import { ColourLegend } from './colour-legend';
+import { historyKeyAction } from './edit-history';
+import { LeanBanner } from './lean-banner';
+import { OVERLAYS, overlayView, type OverlayKind } from './overlays';
+import { type CellEditRequest, TableGrid } from './table-grid';
+import { TableStore } from './table-store';
+
+/**
+ * The table workspace: the head revision's VE in an editable grid with undo/redo, overlays of
+ * the latest analysis, the lean-under-load banner, saving as a revision, and the analysis panel.
+ */
+@Component({
+  selector: 'app-table-workspace',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [
+    AnalysisPanel,
+    ColourLegend,
+    FormsModule,
+    LeanBanner,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    RouterLink,
+    TableGrid,
+  ],
+  providers: [TableStore],
+  templateUrl: './table-workspace.html',
+  styleUrl: './table-workspace.scss',
+  host: { '(keydown)': 'onKeydown($event)' },
+})
+export class TableWorkspace {
+  private readonly session = inject(Session);
+  private readonly snackBar = inject(MatSnackBar);
+  /** The workspace's state. */
+  protected readonly store = inject(TableStore);
+
+  /** The table id from the route. */
+  readonly id = input.required<string>();
+
+  /** The overlay choices. */
+  protected readonly overlays = OVERLAYS;
+  /** The overlay shown; back to VE whenever the analysis goes away. */
+  protected readonly overlay = linkedSignal<OverlayKind>(() => {
+    this.store.analysis();
+    return 've';
+  });
+  /** The message of the next saved revision. */
+  protected readonly saveMessage = signal('');
+
+  /** Whether the user may edit, save and analyse (tuners). */
+  protected readonly canEdit = computed(() => !!this.session.user()?.roles.includes('tuner'));
+  /** Cells and legend of the overlay shown. */
+  protected readonly view = computed(() =>
+    overlayView({
+      kind: this.overlay(),
+      values: this.store.values(),
+      baseValues: this.store.revision()?.values ?? [],
+      analysis: this.store.analysis(),
+    }),
+  );
+  /** The name of the overlay shown, for the grid's accessible name. */
+  protected readonly overlayLabel = computed(
+    () => OVERLAYS.find((o) => o.kind === this.overlay())?.label ?? '',
+  );
+
+  constructor() {
+    // Load again when the route moves to another table (the component is reused).
+    effect(() => {
+      const id = this.id();
+      untracked(() => this.store.load(id));
+    });
+  }
+
+  /** Checks and applies a typed value; a refusal is told and the cell keeps its value. */
+  protected onCellEdit(request: CellEditRequest): void {
+    const refusal = this.store.edit(request.row, request.col, request.raw);
+    if (refusal) this.snackBar.open(refusal, 'OK', { duration: 6000 });
+  }
+
+  /** Ctrl+Z / Ctrl+Y outside text fields (a cell editor keeps its own text undo). */
+  protected onKeydown(event: KeyboardEvent): void {
+    const target = event.target as HTMLElement | null;
+    if (target?.closest('input, textarea, [contenteditable="true"]')) return;
+    const action = historyKeyAction(event);
+    if (!action || !this.canEdit()) return;
+    event.preventDefault();
+    if (action === 'undo') this.store.undo();
+    else this.store.redo();
+  }
+
+  /** Saves the grid as a new revision. */
+  protected save(): void {
+    this.store.save(this.saveMessage().trim());
+    this.saveMessage.set('');
+  }
+
+  /** Applies the analysis as a draft revision. */
+  protected apply(request: ApplyRequest): void {
+    this.store.applyAnalysis(request.stepFraction, request.message);
+  }
+}
+
+export default TableWorkspace;
