@@ -1,4 +1,5 @@
 import type { CellStats } from '../../shared/accumulate';
+import type { AnalysisCell } from '../../shared/contracts/analyses';
 import { gridToJsonRows, jsonRowsToGrid, type Grid } from '../../shared/core/table';
 import type { Analysis } from '../../shared/pipeline';
 
@@ -34,32 +35,7 @@ export interface StoredProposal {
 }
 
 /** The results of one cell as the API shows them. */
-export interface CellResult {
-  /** Samples touching the cell. */
-  samples: number;
-  /** Total bilinear weight. */
-  weight: number;
-  /** Weighted mean correction ratio (null: no data). */
-  ratio: number | null;
-  /** Weighted spread of the ratio. */
-  spread: number | null;
-  /** Effective sample count. */
-  effectiveCount: number;
-  /** Weighted mean lambda error, % (positive lean). */
-  lambdaErrorPct: number | null;
-  /** Worst lean excursion under load, %. */
-  worstLeanPct: number | null;
-  /** Mean measured lambda. */
-  lambdaMeasured: number | null;
-  /** Mean commanded lambda. */
-  lambdaCommanded: number | null;
-  /** Proposed VE. */
-  proposal: number | null;
-  /** Proposed change, %. */
-  changePct: number | null;
-  /** Whether the cell is trusted, short of data, locked or without data. */
-  status: string;
-}
+export type CellResult = AnalysisCell;
 
 /** Splits a row-major list into rows of `cols`. */
 function toRows<T>(items: readonly T[], cols: number): T[][] {

@@ -45,13 +45,8 @@ export async function showOverlay(page: Page, label: string): Promise<void> {
     .getByRole('radiogroup', { name: 'Cell overlay' })
     .getByRole('radio', { name: label });
   await toggle.click();
-  await page.waitForFunction(
-    (name) =>
-      [...document.querySelectorAll('app-table-grid ag-grid-angular')].some((el) =>
-        (el.getAttribute('aria-label') ?? '').includes(name),
-      ),
-    label,
-  );
+  // The grid names its overlay in its accessible label once the switch has rendered.
+  await page.locator(`app-table-grid ag-grid-angular[aria-label*="${label}"]`).first().waitFor();
 }
 
 /** The text of the cell at `row` (from 0) and RPM column `col` (from 0). */

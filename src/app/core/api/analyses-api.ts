@@ -1,36 +1,14 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { ApplyAnalysisRequest, CreateAnalysisRequest } from '@shared/contracts/analyses';
+import type {
+  AnalysisCell,
+  ApplyAnalysisRequest,
+  CreateAnalysisRequest,
+} from '@shared/contracts/analyses';
 import type { Revision } from '@shared/contracts/tables';
 
-/** The results of one cell of an analysis (null figures where the cell saw no data). */
-export interface AnalysisCell {
-  /** Samples touching the cell. */
-  samples: number;
-  /** Total bilinear weight (the cell's coverage). */
-  weight: number;
-  /** Weighted mean correction ratio. */
-  ratio: number | null;
-  /** Weighted spread of the ratio. */
-  spread: number | null;
-  /** Effective sample count. */
-  effectiveCount: number;
-  /** Weighted mean lambda error in %, positive = leaner than commanded. */
-  lambdaErrorPct: number | null;
-  /** Worst lean excursion under load, %. */
-  worstLeanPct: number | null;
-  /** Mean measured lambda. */
-  lambdaMeasured: number | null;
-  /** Mean commanded lambda. */
-  lambdaCommanded: number | null;
-  /** Proposed VE at the analysis's step fraction. */
-  proposal: number | null;
-  /** Proposed change of VE in %, positive = VE up. */
-  changePct: number | null;
-  /** `trusted`, `too_little_data`, `locked` or `no_data`. */
-  status: string;
-}
+export type { AnalysisCell } from '@shared/contracts/analyses';
 
 /** One line of a log's filter funnel. */
 export interface FunnelLine {
