@@ -1,41 +1,73 @@
+import { DatePipe, DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import type { LogResource } from '@shared/contracts/logs';
+import { forkJoin, map, of } from 'rxjs';
+import { apiErrorMessage } from '../../core/api/api-error';
+import { LogsApi } from '../../core/api/logs-api';
+import { VehiclesApi } from '../../core/api/vehicles-api';
 import { Session } from '../../core/auth/session';
-import { AreaIntro } from '../../shared/ui/area-intro';
-import { textForRoles } from '../../shared/ui/role-text';
+import { mergeLogRows, upsertLogRow, type LogRow } from './log-rows';
+import { canUploadLogs, formatDuration, isPending, statusLabel } from './log-text';
+import { LogUpload } from './log-upload';
 
-/** The logs area. Its records arrive with the logs API; until then it says so honestly. */
+/** The shop's logs across its vehicles, newest first, and the upload area for those who upload. */
 @Component({
   selector: 'app-logs-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [AreaIntro],
-  template: `
-    <div class="cs-page">
-      <app-area-intro
-        title="Logs"
-        icon="monitoring"
-        emptyTitle="Log list coming next"
-        emptyText="Logs are already uploaded and parsed through the API; this page will list them and take uploads in the next release."
-        [description]="description()"
-      />
-    </div>
-  `,
+  imports: [DatePipe, DecimalPipe, RouterLink, MatProgressBarModule, LogUpload],
+  templateUrl: './logs-page.html',
+  styleUrl: './logs-page.scss',
 })
 export class LogsPage {
+  private readonly vehiclesApi = inject(VehiclesApi);
+  private readonly logsApi = inject(LogsApi);
   private readonly session = inject(Session);
 
-  /** What this area does, written for the user's own role. */
-  protected readonly description = computed(() =>
-    textForRoles(
-      this.session.user()?.roles ?? [],
-      {
-        tuner:
-          'Logs are the wideband recordings of drives and dyno runs. Import a CSV from any logger, map its columns once, and Cellsmith aligns, filters and accumulates it cell by cell into a proposal for the table.',
-        operator:
-          'Logs are the recordings of the sessions you run. Upload the files after each session; targets of the plan are ticked off as the new data reaches them.',
-      },
-      'Logs are the wideband recordings behind every table revision: which cells were reached, how far measured lambda sat from commanded, and where the mixture went lean.',
-    ),
-  );
+  /** The shop's vehicles (the API's largest page; shops hold far fewer). */
+  protected readonly vehicles = rxResource({
+    stream: () => this.vehiclesApi.list({ limit: 100 }).pipe(map((res) => res.items)),
+    defaultValue: [],
+  });
+
+  /** Every vehicle's logs, merged newest first. */
+  protected readonly rows = rxResource({
+    params: () => this.vehicles.value(),
+    stream: ({ params }) =>
+      params.length === 0
+        ? of([] as LogRow[])
+        : forkJoin(
+            params.map((vehicle) =>
+              this.logsApi
+                .listForVehicle(vehicle.id)
+                .pipe(map((res) => ({ vehicleLabel: vehicle.label, logs: res.items }))),
+            ),
+          ).pipe(map(mergeLogRows)),
+    defaultValue: [] as LogRow[],
+  });
+
+  /** Whether the user may upload logs. */
+  protected readonly canUpload = computed(() => canUploadLogs(this.session.user()?.roles ?? []));
+
+  /** Why the list could not be loaded, if it could not. */
+  protected readonly loadError = computed(() => {
+    const error = this.vehicles.error() ?? this.rows.error();
+    return error === undefined ? null : apiErrorMessage(error, 'The logs could not be loaded.');
+  });
+
+  /** The chip text of a log. */
+  protected readonly statusLabel = statusLabel;
+  /** Whether a log is still being read. */
+  protected readonly isPending = isPending;
+  /** A readable duration. */
+  protected readonly formatDuration = formatDuration;
+
+  /** Puts the uploaded log's latest state into the list. */
+  protected showLog(change: { log: LogResource; vehicleLabel: string }): void {
+    this.rows.update((rows) => upsertLogRow(rows, change.log, change.vehicleLabel));
+  }
 }
 
 export default LogsPage;

@@ -7,6 +7,11 @@ const logsRoutes: Routes = [
     title: 'Logs · Cellsmith',
     loadComponent: () => import('./logs-page'),
   },
+  {
+    path: ':id',
+    title: 'Log · Cellsmith',
+    loadComponent: () => import('./log-page'),
+  },
 ];
 
 export default logsRoutes;
