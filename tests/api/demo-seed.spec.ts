@@ -22,8 +22,12 @@ describe('the demo shop', () => {
     expect(labels).toEqual(expect.arrayContaining(['Demo hatch 1.6T', 'Demo roadster 2.0']));
     const hatch = (list.body.items as Vehicle[]).find((v) => v.label === 'Demo hatch 1.6T');
     const logs = await tuner.get(`/api/vehicles/${hatch?.id}/logs`);
-    expect(logs.body.total).toBe(2);
-    for (const log of logs.body.items as LogResource[]) {
+    // The browser tests may upload to the same demo vehicle meanwhile: look at the seeded files.
+    const seeded = (logs.body.items as LogResource[]).filter((log) =>
+      log.fileName.startsWith('demo-hatch-1-6t-'),
+    );
+    expect(seeded).toHaveLength(2);
+    for (const log of seeded) {
       expect(log.status).toBe('ready');
       expect(log.sampleCount).toBeGreaterThan(1000);
     }
