@@ -61,46 +61,7 @@ import { durationText, isLogPending, logStatusText } from './vehicle-detail-text
       </tr>
     </table>
   `,
-  styles: `
-    .logs {
-      max-width: 1100px;
-    }
-    .file {
-      overflow-wrap: anywhere;
-    }
-    .number {
-      text-align: end;
-    }
-    .chip {
-      display: inline-block;
-      padding: 2px 10px;
-      border-radius: var(--mat-sys-corner-full);
-      font: var(--mat-sys-label-medium);
-      background: var(--mat-sys-surface-container-high);
-      color: var(--mat-sys-on-surface);
-    }
-    .status-ready {
-      background: var(--mat-sys-primary-container);
-      color: var(--mat-sys-on-primary-container);
-    }
-    .status-failed {
-      background: var(--mat-sys-error-container);
-      color: var(--mat-sys-on-error-container);
-    }
-    .progress {
-      width: 120px;
-      margin-top: 4px;
-    }
-    .failure {
-      margin-top: 4px;
-      color: var(--mat-sys-error);
-      font: var(--mat-sys-body-small);
-    }
-    .empty {
-      padding: 16px;
-      color: var(--mat-sys-on-surface-variant);
-    }
-  `,
+  styleUrl: './vehicle-logs.scss',
 })
 export class VehicleLogs {
   /** The logs, newest first. */
