@@ -37,7 +37,9 @@ export async function startRunningApp(): Promise<RunningApp> {
   const databaseUrl = process.env['DATABASE_URL'];
   if (!databaseUrl)
     throw new Error('DATABASE_URL is not set: run the browser tests through `npm test`');
-  const clientDist = join(projectRoot(), 'dist', 'cellsmith', 'browser');
+  // CLIENT_DIST lets a build in another folder be tested (e.g. while dist/ is being rebuilt).
+  const clientDist =
+    process.env['CLIENT_DIST'] ?? join(projectRoot(), 'dist', 'cellsmith', 'browser');
   if (!existsSync(join(clientDist, 'index.html'))) {
     throw new Error('the client is not built: `npm test` builds it before the browser tests');
   }
