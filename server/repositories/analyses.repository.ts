@@ -1,5 +1,6 @@
-import { and, eq } from 'drizzle-orm';
-import { analyses, type AnalysisRow, type NewAnalysisRow } from '../../db/schema';
+import { and, count, desc, eq, sql } from 'drizzle-orm';
+import { analyses, revisions, users, type AnalysisRow, type NewAnalysisRow } from '../../db/schema';
+import type { AnalysisSummary, ListAnalysesQuery } from '../../shared/contracts/analyses';
 import type { Executor } from '../db';
 
 /** Stores an analysis and returns its row. */
@@ -21,4 +22,49 @@ export async function findAnalysis(
     .where(and(eq(analyses.shopId, shopId), eq(analyses.id, id)))
     .limit(1);
   return rows[0] ?? null;
+}
+
+/**
+ * A page of a table's analyses, newest first, and how many it has. Only the small columns are
+ * read: the per-cell grids and the proposal (tens of kB each) stay in the database, and the
+ * trusted-cell and lean-flag counts are taken from the stored report inside PostgreSQL.
+ */
+export async function listAnalysesOfTable(
+  db: Executor,
+  shopId: string,
+  tableId: string,
+  query: ListAnalysesQuery,
+): Promise<{ items: AnalysisSummary[]; total: number }> {
+  const where = and(eq(analyses.shopId, shopId), eq(analyses.tableId, tableId));
+  const rows = await db
+    .select({
+      id: analyses.id,
+      tableId: analyses.tableId,
+      baseRevisionId: analyses.baseRevisionId,
+      baseRevisionNumber: revisions.number,
+      logIds: analyses.logIds,
+      settings: analyses.settings,
+      createdAt: analyses.createdAt,
+      trustedCells: sql<number>`coalesce((${analyses.filterReport}->>'cellsTrusted')::int, 0)`,
+      leanFlagCount: sql<number>`jsonb_array_length(${analyses.leanFlags})`,
+      authorName: users.name,
+    })
+    .from(analyses)
+    .innerJoin(revisions, eq(revisions.id, analyses.baseRevisionId))
+    .leftJoin(users, eq(users.id, analyses.createdBy))
+    .where(where)
+    // The id breaks ties of the same instant so pages never overlap.
+    .orderBy(desc(analyses.createdAt), desc(analyses.id))
+    .limit(query.limit)
+    .offset(query.offset);
+  const [counted] = await db.select({ total: count() }).from(analyses).where(where);
+  return {
+    items: rows.map((row) => ({
+      ...row,
+      trustedCells: Number(row.trustedCells),
+      leanFlagCount: Number(row.leanFlagCount),
+      createdAt: row.createdAt.toISOString(),
+    })),
+    total: counted?.total ?? 0,
+  };
 }

@@ -1,5 +1,10 @@
 import type { AnalysisRow } from '../../db/schema';
-import type { ApplyAnalysisRequest, CreateAnalysisRequest } from '../../shared/contracts/analyses';
+import type {
+  AnalysisSummary,
+  ApplyAnalysisRequest,
+  CreateAnalysisRequest,
+  ListAnalysesQuery,
+} from '../../shared/contracts/analyses';
 import type { Revision } from '../../shared/contracts/tables';
 import type { VeTable } from '../../shared/core/table';
 import {
@@ -11,7 +16,11 @@ import {
 import type { Database } from '../db';
 import { AppError, conflict, notFound } from '../errors/app-error';
 import { invalidInput } from '../errors/invalid-input';
-import { findAnalysis, insertAnalysis } from '../repositories/analyses.repository';
+import {
+  findAnalysis,
+  insertAnalysis,
+  listAnalysesOfTable,
+} from '../repositories/analyses.repository';
 import { recordAudit } from '../repositories/audit.repository';
 import { findLog } from '../repositories/logs.repository';
 import { findRevision } from '../repositories/revisions.repository';
@@ -178,6 +187,18 @@ export async function getAnalysis(
   const row = await findAnalysis(db, actor.shopId, id);
   if (!row) throw notFound('Analysis');
   return toResource(row);
+}
+
+/** A page of a table's analyses, newest first, without their grids; 404 without the table. */
+export async function listAnalyses(
+  db: Database,
+  actor: SessionUserRecord,
+  tableId: string,
+  query: ListAnalysesQuery,
+): Promise<{ items: AnalysisSummary[]; total: number }> {
+  const table = await findTable(db, actor.shopId, tableId);
+  if (!table) throw notFound('Table');
+  return listAnalysesOfTable(db, actor.shopId, table.id, query);
 }
 
 /** A row-major mask of the cells listed as `[row, col]`; 400 naming a cell off the table. */

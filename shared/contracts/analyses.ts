@@ -130,3 +130,80 @@ export interface AnalysisCell {
   /** `trusted`, `too_little_data`, `locked` or `no_data`. */
   status: string;
 }
+
+/** Query of `GET /api/tables/:id/analyses`: paging of the table's analyses, newest first. */
+export const listAnalysesQuerySchema = z.object({
+  limit: z.coerce
+    .number({ error: 'limit must be a number' })
+    .int('limit must be a whole number')
+    .min(1, 'limit must be between 1 and 100')
+    .max(100, 'limit must be between 1 and 100')
+    .default(20),
+  offset: z.coerce
+    .number({ error: 'offset must be a number' })
+    .int('offset must be a whole number')
+    .min(0, 'offset must be 0 or more')
+    .default(0),
+});
+
+/** Query of `GET /api/tables/:id/analyses`, parsed. */
+export type ListAnalysesQuery = z.output<typeof listAnalysesQuerySchema>;
+
+/** An analysis in a list: what it ran on and what it found, without its per-cell grids. */
+export interface AnalysisSummary {
+  /** The analysis id. */
+  id: string;
+  /** Its table. */
+  tableId: string;
+  /** The revision it was run against. */
+  baseRevisionId: string;
+  /** That revision's number within the table. */
+  baseRevisionNumber: number;
+  /** The logs analysed. */
+  logIds: string[];
+  /** The settings it ran with (empty: the defaults). */
+  settings: Record<string, unknown>;
+  /** When it ran, ISO 8601. */
+  createdAt: string;
+  /** Cells with enough data to be trusted. */
+  trustedCells: number;
+  /** Cells flagged lean under load. */
+  leanFlagCount: number;
+  /** Who ran it (null if that account is gone). */
+  authorName: string | null;
+}
+
+/** Fewest and most samples `GET /api/analyses/:id/samples` returns per request. */
+export const SAMPLES_MAX_RANGE = { min: 100, max: 20000, default: 4000 } as const;
+
+/** Query of `GET /api/analyses/:id/samples`: at most how many samples to return. */
+export const analysisSamplesQuerySchema = z.object({
+  max: z.coerce
+    .number({ error: 'max must be a number' })
+    .int('max must be a whole number')
+    .min(SAMPLES_MAX_RANGE.min, 'max must be between 100 and 20000')
+    .max(SAMPLES_MAX_RANGE.max, 'max must be between 100 and 20000')
+    .default(SAMPLES_MAX_RANGE.default),
+});
+
+/** Query of `GET /api/analyses/:id/samples`, parsed. */
+export type AnalysisSamplesQuery = z.output<typeof analysisSamplesQuerySchema>;
+
+/**
+ * The samples an analysis kept (after delay alignment and the filters), as columns of equal
+ * length, thinned evenly to at most `max`.
+ */
+export interface AnalysisSamples {
+  /** Engine speed per sample. */
+  rpm: number[];
+  /** MAP per sample, kPa absolute. */
+  mapKpa: number[];
+  /** Lambda error λ_meas/λ_cmd − 1 in %, positive = leaner than commanded (as the cells). */
+  lambdaErrorPct: number[];
+  /** Which of the analysis's logs (index into its `logIds`) each sample came from. */
+  logIndex: number[];
+  /** Kept samples in all, before thinning. */
+  total: number;
+  /** Samples returned (the length of each column). */
+  returned: number;
+}

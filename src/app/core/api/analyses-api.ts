@@ -3,12 +3,23 @@ import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 import type {
   AnalysisCell,
+  AnalysisSamples,
+  AnalysisSummary,
   ApplyAnalysisRequest,
   CreateAnalysisRequest,
 } from '@shared/contracts/analyses';
+import type { ListResponse } from '@shared/contracts/errors';
 import type { Revision } from '@shared/contracts/tables';
 
-export type { AnalysisCell } from '@shared/contracts/analyses';
+export type { AnalysisCell, AnalysisSamples, AnalysisSummary } from '@shared/contracts/analyses';
+
+/** Paging of `GET /api/tables/:id/analyses`; absent fields take the server's defaults. */
+export interface AnalysisListQuery {
+  /** Page size, 1–100 (server default 20). */
+  limit?: number;
+  /** How many of the newest to skip. */
+  offset?: number;
+}
 
 /** One line of a log's filter funnel. */
 export interface FunnelLine {
@@ -78,7 +89,10 @@ export interface AnalysisResource {
   createdAt: string;
 }
 
-/** HTTP client of analyses: running one over logs, and applying one as a draft revision. */
+/**
+ * HTTP client of analyses: running one over logs, listing a table's earlier ones, reading the
+ * samples one kept, and applying one as a draft revision.
+ */
 @Injectable({ providedIn: 'root' })
 export class AnalysesApi {
   private readonly http = inject(HttpClient);
@@ -88,6 +102,37 @@ export class AnalysesApi {
     return this.http.post<AnalysisResource>(
       `/api/tables/${encodeURIComponent(tableId)}/analyses`,
       body,
+    );
+  }
+
+  /** `GET /api/tables/:id/analyses`: a page of the table's analyses, newest first, no grids. */
+  listForTable(
+    tableId: string,
+    query: AnalysisListQuery = {},
+  ): Observable<ListResponse<AnalysisSummary>> {
+    const params: Record<string, number> = {};
+    if (query.limit !== undefined) params['limit'] = query.limit;
+    if (query.offset !== undefined) params['offset'] = query.offset;
+    return this.http.get<ListResponse<AnalysisSummary>>(
+      `/api/tables/${encodeURIComponent(tableId)}/analyses`,
+      { params },
+    );
+  }
+
+  /** `GET /api/analyses/:id`: one analysis with its cells and proposal. */
+  get(analysisId: string): Observable<AnalysisResource> {
+    return this.http.get<AnalysisResource>(`/api/analyses/${encodeURIComponent(analysisId)}`);
+  }
+
+  /**
+   * `GET /api/analyses/:id/samples`: the samples the analysis kept, as columns, evenly thinned
+   * to at most `max` (100–20000; server default 4000).
+   */
+  samples(analysisId: string, max?: number): Observable<AnalysisSamples> {
+    const params: Record<string, number> = max === undefined ? {} : { max };
+    return this.http.get<AnalysisSamples>(
+      `/api/analyses/${encodeURIComponent(analysisId)}/samples`,
+      { params },
     );
   }
 

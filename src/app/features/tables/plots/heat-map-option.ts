@@ -1,0 +1,291 @@
+/**
+ * The table as an ECharts heat map: RPM across, MAP up, every cell coloured on our OKLab scales
+ * (sequential for VE and proposal, diverging around zero for change and lambda error) and
+ * labelled with its figure, the picked cell outlined. Pure: data in, option object out.
+ */
+import type { HeatmapSeriesOption } from 'echarts/charts';
+import type {
+  GridComponentOption,
+  TooltipComponentOption,
+  VisualMapComponentOption,
+} from 'echarts/components';
+import type { ComposeOption } from 'echarts/core';
+import type { AnalysisResource } from '../../../core/api/analyses-api';
+import {
+  DIVERGING_STOPS,
+  SEQUENTIAL_STOPS,
+  colourAt,
+  gradientCss,
+  readableTextColour,
+} from '../../../shared/ui/colour-scale';
+import type { ChartTheme } from './chart-theme';
+import {
+  type CellRef,
+  DIVERGING_LIMIT_PCT,
+  MINUS,
+  NO_FIGURE,
+  lambdaErrorText,
+  sampleStops,
+  signed,
+} from './plot-format';
+
+/** An ECharts option of the heat map. */
+export type HeatMapOption = ComposeOption<
+  HeatmapSeriesOption | GridComponentOption | TooltipComponentOption | VisualMapComponentOption
+>;
+
+/** What the heat map colours. */
+export type HeatLayer = 've' | 'proposal' | 'change' | 'lambdaError';
+
+/** One choice of the layer switch. */
+export interface HeatLayerOption {
+  /** The layer. */
+  readonly layer: HeatLayer;
+  /** Its label. */
+  readonly label: string;
+  /** Whether it needs an analysis. */
+  readonly needsAnalysis: boolean;
+}
+
+/** The layers in the order of the switch. */
+export const HEAT_LAYERS: readonly HeatLayerOption[] = [
+  { layer: 've', label: 'VE', needsAnalysis: false },
+  { layer: 'proposal', label: 'Proposal', needsAnalysis: true },
+  { layer: 'change', label: 'Change %', needsAnalysis: true },
+  { layer: 'lambdaError', label: 'Lambda error %', needsAnalysis: true },
+];
+
+/** The data of the heat map. */
+export interface HeatMapInput {
+  /** RPM breakpoints (columns), ascending. */
+  readonly rpmAxis: readonly number[];
+  /** MAP breakpoints in kPa (rows), ascending. */
+  readonly mapAxisKpa: readonly number[];
+  /** VE now, `[row][col]`. */
+  readonly values: readonly (readonly number[])[];
+  /** The analysis, if any. */
+  readonly analysis: AnalysisResource | null;
+  /** The layer shown. */
+  readonly layer: HeatLayer;
+  /** The cell to outline. */
+  readonly selectedCell: CellRef | null;
+  /** The frame's colours. */
+  readonly theme: ChartTheme;
+}
+
+/** The legend under a plot: a gradient of our scale and its labelled ends. */
+export interface PlotLegend {
+  /** CSS gradient of the scale (left → right). */
+  readonly gradient: string;
+  /** Label of the left end. */
+  readonly low: string;
+  /** Label of the middle ('' for sequential scales). */
+  readonly mid: string;
+  /** Label of the right end. */
+  readonly high: string;
+  /** How to read it. */
+  readonly note: string;
+}
+
+/** A heat map cell as ECharts data: `[col, row, colour position 0–1, figure]`. */
+type HeatDatum = [number, number, number, number];
+
+/** The figure a layer shows in a cell, or null. */
+export function layerFigure(input: HeatMapInput, row: number, col: number): number | null {
+  const cell = input.analysis?.cells[row]?.[col];
+  let value: number | null | undefined;
+  switch (input.layer) {
+    case 've':
+      value = input.values[row]?.[col];
+      break;
+    case 'proposal':
+      value = input.analysis?.proposal[row]?.[col];
+      break;
+    case 'change':
+      value = cell?.changePct;
+      break;
+    case 'lambdaError':
+      value = cell?.lambdaErrorPct;
+      break;
+  }
+  return value === null || value === undefined || !Number.isFinite(value) ? null : value;
+}
+
+/** The lowest and highest of the finite figures (0–1 when none). */
+function extent(figures: readonly (number | null)[]): [number, number] {
+  const finite = figures.filter((v): v is number => v !== null);
+  return finite.length ? [Math.min(...finite), Math.max(...finite)] : [0, 1];
+}
+
+/**
+ * Where a figure sits on its layer's scale, 0–1. VE and proposal share the range of both so
+ * their colours compare; change is coloured by the fuel it adds (VE up = richer = blue), lambda
+ * error by the mixture (lean = orange), both clamped at ±{@link DIVERGING_LIMIT_PCT}.
+ */
+function position(layer: HeatLayer, value: number, [lo, hi]: [number, number]): number {
+  const signedT = (v: number) => Math.min(1, Math.max(0, 0.5 + v / (2 * DIVERGING_LIMIT_PCT)));
+  if (layer === 'change') return signedT(-value);
+  if (layer === 'lambdaError') return signedT(value);
+  return hi > lo ? (value - lo) / (hi - lo) : 0.5;
+}
+
+/** The sequential range of VE and proposal together. */
+function sequentialRange(input: HeatMapInput): [number, number] {
+  const ve = input.values.flat();
+  const proposal = (input.analysis?.proposal ?? []).flat().filter((v) => v !== null);
+  return extent(input.layer === 'proposal' ? [...ve, ...proposal] : ve);
+}
+
+/** The text of a figure in a cell (short: the tooltip says the rest). */
+function cellText(layer: HeatLayer, value: number): string {
+  return layer === 'change' || layer === 'lambdaError' ? signed(value) : value.toFixed(1);
+}
+
+/** The tooltip of a cell: its breakpoints, its figure and what the figure means. */
+export function heatTooltip(layer: HeatLayer, rpm: number, mapKpa: number, value: number): string {
+  const where = `${rpm} rpm · ${mapKpa} kPa`;
+  switch (layer) {
+    case 've':
+      return `${where}<br>VE ${value.toFixed(1)} %`;
+    case 'proposal':
+      return `${where}<br>Proposed VE ${value.toFixed(1)} %`;
+    case 'change':
+      return `${where}<br>Change ${signed(value)} % (${value >= 0 ? 'more fuel' : 'less fuel'})`;
+    case 'lambdaError':
+      return `${where}<br>Lambda error ${lambdaErrorText(value)}`;
+  }
+}
+
+/** The heat map's ECharts option. */
+export function heatMapOption(input: HeatMapInput): HeatMapOption {
+  const { rpmAxis, mapAxisKpa, theme, layer } = input;
+  const figures = mapAxisKpa.map((_, r) => rpmAxis.map((_, c) => layerFigure(input, r, c)));
+  const range = sequentialRange(input);
+  const diverging = layer === 'change' || layer === 'lambdaError';
+  const data: NonNullable<HeatmapSeriesOption['data']> = [];
+  let picked: (typeof data)[number] | null = null;
+  figures.forEach((row, r) =>
+    row.forEach((value, c) => {
+      if (value === null) return;
+      const t = position(layer, value, range);
+      const background = colourAt(diverging ? DIVERGING_STOPS : SEQUENTIAL_STOPS, t);
+      const text = readableTextColour(background);
+      const datum: HeatDatum = [c, r, t, value];
+      if (input.selectedCell?.row === r && input.selectedCell?.col === c) {
+        // Outlined in its own text colour, which contrasts with the cell in either scheme.
+        picked = {
+          value: datum,
+          label: { color: text },
+          itemStyle: { borderColor: text, borderWidth: 3 },
+        };
+        return;
+      }
+      data.push({
+        value: datum,
+        label: { color: text },
+        itemStyle: { borderColor: theme.surface, borderWidth: 1 },
+      });
+    }),
+  );
+  // Drawn last, so no neighbour's border covers the outline.
+  if (picked) data.push(picked);
+  const axisLabel = { color: theme.text, fontSize: 11 };
+  const nameTextStyle = { color: theme.mutedText };
+  return {
+    backgroundColor: 'transparent',
+    animation: false,
+    textStyle: { color: theme.text },
+    grid: { left: 64, right: 16, top: 16, bottom: 48 },
+    tooltip: {
+      backgroundColor: theme.surface,
+      borderColor: theme.gridLine,
+      textStyle: { color: theme.text },
+      formatter: (params) => {
+        const value = (params as { value?: unknown }).value as HeatDatum | undefined;
+        if (!value) return '';
+        return heatTooltip(layer, rpmAxis[value[0]], mapAxisKpa[value[1]], value[3]);
+      },
+    },
+    xAxis: {
+      type: 'category',
+      name: 'RPM',
+      nameLocation: 'middle',
+      nameGap: 28,
+      nameTextStyle,
+      data: rpmAxis.map(String),
+      axisLabel,
+      axisLine: { lineStyle: { color: theme.line } },
+      splitArea: { show: false },
+    },
+    yAxis: {
+      type: 'category',
+      name: 'MAP kPa',
+      nameLocation: 'middle',
+      nameGap: 44,
+      nameTextStyle,
+      data: mapAxisKpa.map(String),
+      axisLabel,
+      axisLine: { lineStyle: { color: theme.line } },
+    },
+    // ECharts colours a heat map through a visual map: it gets our scale, sampled in OKLab.
+    visualMap: {
+      show: false,
+      type: 'continuous',
+      dimension: 2,
+      min: 0,
+      max: 1,
+      seriesIndex: 0,
+      inRange: { color: sampleStops(diverging ? DIVERGING_STOPS : SEQUENTIAL_STOPS) },
+    },
+    series: [
+      {
+        type: 'heatmap',
+        name: HEAT_LAYERS.find((l) => l.layer === layer)?.label ?? layer,
+        data,
+        label: {
+          show: true,
+          fontSize: 10,
+          formatter: (params) => {
+            const value = (params as { value?: unknown }).value as HeatDatum | undefined;
+            return value ? cellText(layer, value[3]) : NO_FIGURE;
+          },
+        },
+        emphasis: { itemStyle: { borderColor: theme.text, borderWidth: 2 } },
+      },
+    ],
+  };
+}
+
+/** The legend of a layer, sequential ones labelled with the ends of their colour range. */
+export function heatLegend(input: HeatMapInput): PlotLegend {
+  const limit = DIVERGING_LIMIT_PCT;
+  if (input.layer === 'lambdaError') {
+    return {
+      gradient: gradientCss(DIVERGING_STOPS),
+      low: `▼ ${MINUS}${limit} % rich`,
+      mid: '0',
+      high: `▲ +${limit} % lean`,
+      note: 'Measured against commanded lambda. Beyond ±10 % takes the full colour.',
+    };
+  }
+  if (input.layer === 'change') {
+    return {
+      gradient: gradientCss(DIVERGING_STOPS),
+      low: `+${limit} % VE up`,
+      mid: '0',
+      high: `${MINUS}${limit} % VE down`,
+      note: 'Proposed change of VE, in the colours of the fuel it adds: more fuel blue, less orange.',
+    };
+  }
+  const [lo, hi] = sequentialRange(input);
+  return {
+    gradient: gradientCss(SEQUENTIAL_STOPS),
+    low: `${lo.toFixed(1)} %`,
+    mid: '',
+    high: `${hi.toFixed(1)} %`,
+    note:
+      input.layer === 've'
+        ? 'VE now, in percent; MAP rises upwards.'
+        : 'Proposed VE on the same colours as VE now.',
+  };
+}

@@ -1,0 +1,74 @@
+/**
+ * Number formatting and colour helpers shared by the plots: signed figures with a true minus
+ * sign, lean/rich words, the limit of the diverging scale, and our scales sampled into colour
+ * stops for ECharts.
+ */
+import { colourAt, type ColourStop } from '../../../shared/ui/colour-scale';
+
+/** Lambda error and change at or beyond this many percent take the full hue (as the grid). */
+export const DIVERGING_LIMIT_PCT = 10;
+
+/** The true minus sign, wider than a hyphen and read as "minus" by screen readers. */
+export const MINUS = '\u2212';
+
+/** A cell with no figure. */
+export const NO_FIGURE = '–';
+
+/** A row and column of the table (row = MAP breakpoint, col = RPM breakpoint). */
+export interface CellRef {
+  /** Row index: the MAP breakpoint, from 0. */
+  readonly row: number;
+  /** Column index: the RPM breakpoint, from 0. */
+  readonly col: number;
+}
+
+/** `value` with `digits` decimals and its sign: "+4.2", "−3.1"; rounding to zero gives "0.0". */
+export function signed(value: number, digits = 1): string {
+  const rounded = Number(value.toFixed(digits));
+  if (rounded === 0) return (0).toFixed(digits);
+  const magnitude = Math.abs(rounded).toFixed(digits);
+  return rounded > 0 ? `+${magnitude}` : `${MINUS}${magnitude}`;
+}
+
+/**
+ * A lambda error in words with its glyph: "▲ +4.2 % lean", "▼ −3.1 % rich", "0.0 % on target".
+ */
+export function lambdaErrorText(errorPct: number, digits = 1): string {
+  const text = signed(errorPct, digits);
+  if (text.startsWith('+')) return `▲ ${text} % lean`;
+  if (text.startsWith(MINUS)) return `▼ ${text} % rich`;
+  return `${text} % on target`;
+}
+
+/** A whole number with thousands separators ("28,239"), in the product's English. */
+export function grouped(value: number): string {
+  return Math.round(value).toLocaleString('en-GB');
+}
+
+/** `count` colours evenly along `stops` (our OKLab interpolation), for ECharts colour lists. */
+export function sampleStops(stops: readonly ColourStop[], count = 17): string[] {
+  if (!Number.isInteger(count) || count < 2) throw new Error('sampleStops: count must be ≥ 2');
+  return Array.from({ length: count }, (_, i) => colourAt(stops, i / (count - 1)));
+}
+
+/**
+ * The cell whose breakpoints lie nearest to (`rpm`, `mapKpa`), each axis on its own: where a
+ * sample's weight is largest. Axes must be ascending with at least one breakpoint.
+ */
+export function nearestCell(
+  rpmAxis: readonly number[],
+  mapAxisKpa: readonly number[],
+  rpm: number,
+  mapKpa: number,
+): CellRef {
+  return { row: nearestIndex(mapAxisKpa, mapKpa), col: nearestIndex(rpmAxis, rpm) };
+}
+
+function nearestIndex(axis: readonly number[], x: number): number {
+  if (axis.length === 0) throw new Error('nearestCell: an axis has no breakpoints');
+  let best = 0;
+  for (let i = 1; i < axis.length; i++) {
+    if (Math.abs(axis[i] - x) < Math.abs(axis[best] - x)) best = i;
+  }
+  return best;
+}
