@@ -13,6 +13,7 @@ import { authRoutes, SESSION_COOKIE } from './routes/auth.routes';
 import { healthRoutes } from './routes/health.routes';
 import { invitationRoutes } from './routes/invitations.routes';
 import { logRoutes } from './routes/logs.routes';
+import { preferenceRoutes } from './routes/preferences.routes';
 import { revisionRoutes } from './routes/revisions.routes';
 import { tableRoutes } from './routes/tables.routes';
 import { teamRoutes } from './routes/team.routes';
@@ -78,6 +79,7 @@ export function createApp(ctx: AppContext, options: AppOptions): BuiltApp {
   const api = express.Router();
   api.use(healthRoutes(ctx));
   api.use(authRoutes(ctx, auth));
+  api.use(preferenceRoutes(ctx));
   api.use(invitationRoutes(ctx));
   api.use(teamRoutes(ctx));
   api.use(vehicleRoutes(ctx));

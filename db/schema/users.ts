@@ -1,6 +1,19 @@
 import { sql } from 'drizzle-orm';
-import { index, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import {
+  index,
+  jsonb,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from 'drizzle-orm/pg-core';
 import { ROLES } from '../../shared/contracts/constants';
+import {
+  DEFAULT_DISPLAY_PREFERENCES,
+  type DisplayPreferenceValues,
+} from '../../shared/contracts/preferences';
 import { shops } from './shops';
 
 /** The roles a member may hold. */
@@ -15,6 +28,14 @@ export const users = pgTable(
     name: text('name').notNull(),
     /** `scrypt$N$r$p$salt$hash`, see server/services/passwords.ts. */
     passwordHash: text('password_hash').notNull(),
+    /**
+     * How this person wants values shown (units, mixture, colour scheme). Personal, not per
+     * shop; read through `storedDisplayPreferencesSchema` so an outdated value falls back.
+     */
+    preferences: jsonb('preferences')
+      .$type<DisplayPreferenceValues>()
+      .notNull()
+      .default({ ...DEFAULT_DISPLAY_PREFERENCES }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (table) => [uniqueIndex('users_email_key').on(sql`lower(${table.email})`)],

@@ -1,5 +1,10 @@
 import { and, eq, isNull, sql } from 'drizzle-orm';
 import { memberships, shops, users } from '../../db/schema';
+import {
+  storedDisplayPreferencesSchema,
+  type DisplayPreferenceValues,
+  type UpdateDisplayPreferencesRequest,
+} from '../../shared/contracts/preferences';
 import type { Role } from '../../shared/contracts/roles';
 import type { Executor } from '../db';
 
@@ -101,4 +106,41 @@ export async function insertMember(
     .insert(memberships)
     .values({ userId: user.id, shopId: member.shopId, roles: member.roles });
   return user.id;
+}
+
+/** A user's display preferences, or null when the user does not exist. */
+export async function findPreferences(
+  db: Executor,
+  userId: string,
+): Promise<DisplayPreferenceValues | null> {
+  const rows = await db
+    .select({ preferences: users.preferences })
+    .from(users)
+    .where(eq(users.id, userId))
+    .limit(1);
+  const row = rows[0];
+  return row ? storedDisplayPreferencesSchema.parse(row.preferences) : null;
+}
+
+/**
+ * Lays `change` over a user's stored preferences and returns the result, or null when the user
+ * does not exist. The merge happens in one statement (jsonb `||`), so two tabs changing
+ * different fields at the same moment both keep their change.
+ */
+export async function mergePreferences(
+  db: Executor,
+  userId: string,
+  change: UpdateDisplayPreferencesRequest,
+): Promise<DisplayPreferenceValues | null> {
+  // Only defined fields: JSON has no undefined, and a null would overwrite a stored choice.
+  const defined = Object.fromEntries(
+    Object.entries(change).filter(([, value]) => value !== undefined),
+  );
+  const rows = await db
+    .update(users)
+    .set({ preferences: sql`${users.preferences} || ${JSON.stringify(defined)}::jsonb` })
+    .where(eq(users.id, userId))
+    .returning({ preferences: users.preferences });
+  const row = rows[0];
+  return row ? storedDisplayPreferencesSchema.parse(row.preferences) : null;
 }

@@ -17,24 +17,15 @@ import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
+import type { UpdateDisplayPreferencesRequest } from '@shared/contracts/preferences';
 import { Session } from '../auth/session';
-import {
-  COLOR_SCHEME_CHOICES,
-  type ColorSchemeChoice,
-  ThemePreference,
-} from '../theme/theme-preference';
+import { DisplayPreferences } from '../preferences/display-preferences';
+import { MIXTURE_OPTIONS, THEME_OPTIONS, UNIT_OPTIONS } from '../preferences/preference-options';
 import { NAV_AREAS } from './nav-areas';
 import { ROLE_LABELS } from './role-labels';
 
 /** Below this width the navigation slides over the page instead of sitting beside it. */
 const NARROW_QUERY = '(max-width: 899.98px)';
-
-/** Menu text and icon of each colour-scheme choice. */
-const SCHEME_OPTIONS: Readonly<Record<ColorSchemeChoice, { label: string; icon: string }>> = {
-  system: { label: 'Follow system', icon: 'contrast' },
-  light: { label: 'Light', icon: 'light_mode' },
-  dark: { label: 'Dark', icon: 'dark_mode' },
-};
 
 /** The frame of every signed-in page: toolbar, side navigation by role, and the routed page. */
 @Component({
@@ -59,7 +50,7 @@ export class Shell {
   private readonly session = inject(Session);
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly theme = inject(ThemePreference);
+  private readonly displayPreferences = inject(DisplayPreferences);
   private readonly errorHandler = inject(ErrorHandler);
 
   /** Whether the screen is narrow enough that the navigation overlays the page. */
@@ -83,18 +74,23 @@ export class Shell {
     (this.user()?.roles ?? []).map((role) => ROLE_LABELS[role]).join(', '),
   );
 
-  /** The colour-scheme menu entries. */
-  protected readonly schemeOptions = COLOR_SCHEME_CHOICES.map((choice) => ({
-    choice,
-    ...SCHEME_OPTIONS[choice],
-  }));
+  /** The unit systems offered in the account menu. */
+  protected readonly unitOptions = UNIT_OPTIONS;
+  /** The mixture displays offered. */
+  protected readonly mixtureOptions = MIXTURE_OPTIONS;
+  /** The colour schemes offered. */
+  protected readonly themeOptions = THEME_OPTIONS;
 
-  /** The current colour-scheme choice. */
-  protected readonly schemeChoice = this.theme.choice;
+  /** The user's display preferences in effect. */
+  protected readonly preferences = this.displayPreferences.preferences;
 
-  /** Applies a colour-scheme choice from the toolbar menu. */
-  protected selectScheme(choice: ColorSchemeChoice): void {
-    this.theme.select(choice);
+  /**
+   * Applies a choice from the account menu. The menu stays open (the click does not reach the
+   * panel, which would close it) so all three preferences can be set in one visit.
+   */
+  protected choose(event: Event, change: UpdateDisplayPreferencesRequest): void {
+    event.stopPropagation();
+    this.displayPreferences.change(change);
   }
 
   /** Ends the session and goes to the sign-in page (also when the server could not be told). */

@@ -1,10 +1,15 @@
 import { TestBed } from '@angular/core/testing';
-import { ThemePreference } from './theme-preference';
+import { THEME_CHOICES } from '@shared/contracts/preferences';
+import { COLOR_SCHEME_CHOICES, ThemePreference } from './theme-preference';
 
 describe('ThemePreference', () => {
   beforeEach(() => {
     localStorage.clear();
     document.documentElement.className = '';
+  });
+
+  it('offers the same choices as the preferences contract, in the same order', () => {
+    expect(COLOR_SCHEME_CHOICES).toEqual(THEME_CHOICES);
   });
 
   it('follows the system when nothing is stored', () => {

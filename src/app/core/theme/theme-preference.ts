@@ -1,18 +1,25 @@
 import { DOCUMENT, Injectable, inject, signal } from '@angular/core';
+import type { ThemeChoice } from '@shared/contracts/preferences';
 
 /** The colour schemes a user can choose; `system` follows the operating system. */
-export type ColorSchemeChoice = 'system' | 'light' | 'dark';
+export type ColorSchemeChoice = ThemeChoice;
 
-/** The choices in the order the toolbar menu lists them. */
+/**
+ * The choices in the order the account menu lists them. The same as THEME_CHOICES of
+ * `@shared/contracts/preferences`, which cannot be imported here without pulling zod into the
+ * client bundle; `theme-preference.spec.ts` checks that the two agree.
+ */
 export const COLOR_SCHEME_CHOICES: readonly ColorSchemeChoice[] = ['system', 'light', 'dark'];
 
 const STORAGE_KEY = 'cellsmith.color-scheme';
 const CLASS_PREFIX = 'cs-scheme-';
 
 /**
- * The user's colour-scheme choice, remembered in localStorage. It is applied as a class on
+ * The colour scheme applied to the page, remembered in localStorage. It is applied as a class on
  * <html> (styles.scss sets `color-scheme` from it) rather than an inline style, which the
- * Content-Security-Policy would not allow.
+ * Content-Security-Policy would not allow. Before anyone signs in (the sign-in page) the
+ * remembered choice is used; once signed in, `DisplayPreferences` selects the user's stored one,
+ * which is then remembered here for the next sign-in page.
  */
 @Injectable({ providedIn: 'root' })
 export class ThemePreference {

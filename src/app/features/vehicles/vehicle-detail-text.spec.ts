@@ -5,6 +5,7 @@ import {
   isLogPending,
   latestRevisions,
   logStatusText,
+  mapRangeText,
 } from './vehicle-detail-text';
 
 describe('logStatusText', () => {
@@ -37,6 +38,20 @@ describe('breakpointsText', () => {
   it('When a table has 16 RPM and 12 MAP breakpoints, then it says so', () => {
     const table = { rpmAxis: Array(16).fill(0), mapAxisKpa: Array(12).fill(0) };
     expect(breakpointsText(table)).toBe('16 RPM × 12 MAP breakpoints');
+  });
+});
+
+describe('mapRangeText', () => {
+  it.each([
+    ['metric', 'MAP 20–250 kPa'],
+    // 20 kPa / 6.894757 = 2.90 psi, 250 kPa = 36.26 psi (NIST SP 811 B.8 factor, units.ts)
+    ['imperial', 'MAP 2.9–36.26 psi(a)'],
+  ] as const)('When a table spans 20–250 kPa in %p, then it reads %p', (units, text) => {
+    expect(mapRangeText({ mapAxisKpa: [20, 40, 100, 250] }, units)).toBe(text);
+  });
+
+  it('When a table has no MAP breakpoints, then the text is empty', () => {
+    expect(mapRangeText({ mapAxisKpa: [] }, 'imperial')).toBe('');
   });
 });
 

@@ -1,14 +1,13 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import {
-  type AbstractControl,
-  FormControl,
-  FormGroup,
-  ReactiveFormsModule,
-  type ValidationErrors,
-  type ValidatorFn,
-  Validators,
-} from '@angular/forms';
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  computed,
+  inject,
+  signal,
+} from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -19,18 +18,28 @@ import type { Vehicle } from '@shared/contracts/vehicles';
 import type { Fuel } from '@shared/units';
 import { apiErrorMessage } from '../../core/api/api-error';
 import { VehiclesApi } from '../../core/api/vehicles-api';
+import { DisplayPreferences } from '../../core/preferences/display-preferences';
+import { rangeText } from '../../shared/units/display-range';
 import {
   FUEL_OPTIONS,
-  type FieldLimit,
-  VEHICLE_LIMITS,
   type VehicleFormValue,
   limitError,
-  parseGearRatios,
   stoichAfrFor,
   tyreDiameterMm,
   vehicleFormValue,
   vehicleRequest,
 } from './vehicle-form';
+import { gearRatiosList, numberControl, wholeNumber } from './vehicle-form-controls';
+import {
+  MEASURED_FIELDS,
+  type MeasuredField,
+  type ShownOrigin,
+  type VehicleLimitField,
+  formLimits,
+  inputStep,
+  metricValue,
+  shownValue,
+} from './vehicle-form-units';
 
 /** What the vehicle dialog is opened with: the vehicle to edit, or null to create one. */
 export interface VehicleDialogData {
@@ -38,7 +47,11 @@ export interface VehicleDialogData {
   vehicle: Vehicle | null;
 }
 
-/** The vehicle form's controls; numbers are null while their field is empty. */
+/**
+ * The vehicle form's controls; numbers are null while their field is empty. The measured fields
+ * (displacement, injector flow, tyre diameter) hold values in the user's units; they are turned
+ * into the API's metric units on save.
+ */
 interface VehicleForm {
   label: FormControl<string>;
   description: FormControl<string>;
@@ -57,33 +70,6 @@ interface TyreSizeForm {
   widthMm: FormControl<number | null>;
   aspectPct: FormControl<number | null>;
   rimIn: FormControl<number | null>;
-}
-
-/** Names of the form's numeric fields that have a range. */
-type RangedField = Exclude<keyof VehicleForm, 'label' | 'description' | 'fuel' | 'gearRatios'>;
-
-/** Validator: the control holds a whole number. */
-function wholeNumber(control: AbstractControl<number | null>): ValidationErrors | null {
-  return control.value === null || Number.isInteger(control.value) ? null : { whole: true };
-}
-
-/** Validator: the text parses as a list of gear ratios; the error carries the reason. */
-function gearRatiosList(control: AbstractControl<string>): ValidationErrors | null {
-  const { error } = parseGearRatios(control.value);
-  return error === null ? null : { gearRatios: error };
-}
-
-/** A required number control checked against `limit`. */
-function numberControl(limit: FieldLimit, ...more: ValidatorFn[]): FormControl<number | null> {
-  return new FormControl<number | null>(null, {
-    nonNullable: true,
-    validators: [
-      Validators.required,
-      Validators.min(limit.min),
-      Validators.max(limit.max),
-      ...more,
-    ],
-  });
 }
 
 /**
@@ -111,14 +97,29 @@ export class VehicleDialog {
   private readonly destroyRef = inject(DestroyRef);
   private readonly data = inject<VehicleDialogData | null>(MAT_DIALOG_DATA, { optional: true });
 
+  /**
+   * The units the form is typed in, fixed when the dialog opens (the account menu sits behind
+   * the dialog, so they cannot change while it is open).
+   */
+  protected readonly units = inject(DisplayPreferences).units();
+
+  /** The fuel chosen in the form: lb/h limits and conversions depend on its density. */
+  private readonly fuel = signal<Fuel>(this.data?.vehicle?.engine.fuel ?? 'gasoline');
+
+  /**
+   * What the form put into each measured field and the metric value behind it: an untouched
+   * field is sent back exactly, never through a rounded conversion.
+   */
+  private readonly origins: Partial<Record<MeasuredField, ShownOrigin>> = {};
+
   /** The vehicle being edited, or null when creating. */
   protected readonly vehicle = this.data?.vehicle ?? null;
 
   /** The fuels with their names. */
   protected readonly fuelOptions = FUEL_OPTIONS;
 
-  /** The ranges, for hints. */
-  protected readonly limits = VEHICLE_LIMITS;
+  /** The ranges in the shown units, for hints, suffixes and messages. */
+  protected readonly limits = computed(() => formLimits(this.units, this.fuel()));
 
   /** The form, empty for a new vehicle (gasoline, its AFR prefilled) or the vehicle's values. */
   protected readonly form = new FormGroup<VehicleForm>({
@@ -130,14 +131,14 @@ export class VehicleDialog {
       nonNullable: true,
       validators: [Validators.maxLength(2000)],
     }),
-    displacementL: numberControl(VEHICLE_LIMITS.displacementL),
-    cylinders: numberControl(VEHICLE_LIMITS.cylinders, wholeNumber),
+    displacementL: numberControl(() => this.limits().displacementL),
+    cylinders: numberControl(() => this.limits().cylinders, wholeNumber),
     fuel: new FormControl<Fuel>('gasoline', { nonNullable: true }),
-    stoichAfr: numberControl(VEHICLE_LIMITS.stoichAfr),
-    injectorCcMin: numberControl(VEHICLE_LIMITS.injectorCcMin),
-    tireDiameterMm: numberControl(VEHICLE_LIMITS.tireDiameterMm),
+    stoichAfr: numberControl(() => this.limits().stoichAfr),
+    injectorCcMin: numberControl(() => this.limits().injectorCcMin),
+    tireDiameterMm: numberControl(() => this.limits().tireDiameterMm),
     gearRatios: new FormControl('', { nonNullable: true, validators: [gearRatiosList] }),
-    finalDrive: numberControl(VEHICLE_LIMITS.finalDrive),
+    finalDrive: numberControl(() => this.limits().finalDrive),
   });
 
   /** The tyre-size helper. */
@@ -157,21 +158,30 @@ export class VehicleDialog {
     if (this.vehicle === null) {
       this.form.controls.stoichAfr.setValue(stoichAfrFor('gasoline'));
     } else {
-      this.form.setValue(vehicleFormValue(this.vehicle));
+      const value = vehicleFormValue(this.vehicle);
+      for (const field of Object.keys(MEASURED_FIELDS) as MeasuredField[]) {
+        value[field] = this.show(field, value[field]);
+      }
+      this.form.setValue(value);
     }
-    // A known fuel brings its own ratio; a custom fuel keeps what is there for the user to set.
     this.form.controls.fuel.valueChanges
       .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe((fuel) => {
-        const afr = stoichAfrFor(fuel);
-        if (afr !== null) this.form.controls.stoichAfr.setValue(afr);
-        this.form.controls.stoichAfr.markAsTouched();
-      });
+      .subscribe((fuel) => this.changeFuel(fuel));
   }
 
   /** The message under a numeric field, or null. */
-  protected rangeError(field: RangedField): string | null {
-    return limitError(this.form.controls[field].errors, VEHICLE_LIMITS[field]);
+  protected rangeError(field: Exclude<VehicleLimitField, 'gearRatio'>): string | null {
+    return limitError(this.form.controls[field].errors, this.limits()[field]);
+  }
+
+  /** The accepted range of a measured field in the shown unit, e.g. "3.1–1220.4 ci". */
+  protected rangeHint(field: MeasuredField): string {
+    return rangeText(this.limits()[field], MEASURED_FIELDS[field], this.units);
+  }
+
+  /** The spinner step of a measured field. */
+  protected step(field: MeasuredField): number {
+    return inputStep(field, this.units);
   }
 
   /** The message under the gear ratios, or null. */
@@ -180,18 +190,28 @@ export class VehicleDialog {
     return typeof errors?.['gearRatios'] === 'string' ? errors['gearRatios'] : null;
   }
 
-  /** The diameter the tyre size gives, or null while it is incomplete. */
+  /** The diameter the tyre size gives, in the shown unit, or null while it is incomplete. */
   protected sizeDiameter(): number | null {
     const { widthMm, aspectPct, rimIn } = this.tyreSize.getRawValue();
-    return tyreDiameterMm(widthMm ?? 0, aspectPct ?? 0, rimIn ?? 0);
+    const mm = tyreDiameterMm(widthMm ?? 0, aspectPct ?? 0, rimIn ?? 0);
+    return mm === null ? null : shownValue('tireDiameterMm', mm, this.units, this.fuel());
   }
 
   /** Copies the diameter computed from the tyre size into the diameter field. */
   protected useSizeDiameter(): void {
-    const diameter = this.sizeDiameter();
-    if (diameter === null) return;
-    this.form.controls.tireDiameterMm.setValue(diameter);
+    const { widthMm, aspectPct, rimIn } = this.tyreSize.getRawValue();
+    const mm = tyreDiameterMm(widthMm ?? 0, aspectPct ?? 0, rimIn ?? 0);
+    if (mm === null) return;
+    this.form.controls.tireDiameterMm.setValue(this.show('tireDiameterMm', mm));
     this.form.controls.tireDiameterMm.markAsTouched();
+  }
+
+  /**
+   * Closes without a result. (A bare `mat-dialog-close` attribute would close with "", which
+   * the pages would take for a saved vehicle.)
+   */
+  protected cancel(): void {
+    this.dialogRef.close();
   }
 
   /** Sends the vehicle and closes the dialog with the stored one. */
@@ -201,7 +221,12 @@ export class VehicleDialog {
       return;
     }
     // Every required number is non-null once the form is valid.
-    const body = vehicleRequest(this.form.getRawValue() as VehicleFormValue);
+    const shown = this.form.getRawValue() as VehicleFormValue;
+    const metric: VehicleFormValue = { ...shown };
+    for (const field of Object.keys(MEASURED_FIELDS) as MeasuredField[]) {
+      metric[field] = metricValue(field, shown[field], this.units, shown.fuel, this.origins[field]);
+    }
+    const body = vehicleRequest(metric);
     this.isSubmitting.set(true);
     this.errorMessage.set(null);
     const request =
@@ -213,5 +238,33 @@ export class VehicleDialog {
         this.errorMessage.set(apiErrorMessage(error, 'The vehicle could not be saved.'));
       },
     });
+  }
+
+  /** A metric value as the field shows it, remembered so an untouched field is sent exactly. */
+  private show(field: MeasuredField, metric: number): number {
+    const shown = shownValue(field, metric, this.units, this.fuel());
+    this.origins[field] = { shown, metric };
+    return shown;
+  }
+
+  /**
+   * A new fuel brings its own stoichiometric ratio (a custom fuel keeps what is there for the
+   * user to set). In lb/h the injector's figure is said again at the new fuel's density: the
+   * injectors are the same, only the mass they flow changes.
+   */
+  private changeFuel(fuel: Fuel): void {
+    const previous = this.fuel();
+    const injector = this.form.controls.injectorCcMin;
+    const shown = injector.value;
+    const ccMin =
+      shown === null || this.units === 'metric'
+        ? null
+        : metricValue('injectorCcMin', shown, this.units, previous, this.origins.injectorCcMin);
+    this.fuel.set(fuel);
+    if (ccMin !== null) injector.setValue(this.show('injectorCcMin', ccMin));
+    injector.updateValueAndValidity();
+    const afr = stoichAfrFor(fuel);
+    if (afr !== null) this.form.controls.stoichAfr.setValue(afr);
+    this.form.controls.stoichAfr.markAsTouched();
   }
 }

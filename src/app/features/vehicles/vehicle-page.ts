@@ -13,13 +13,19 @@ import { forkJoin, map, of } from 'rxjs';
 import { apiErrorMessage, isHttpStatus } from '../../core/api/api-error';
 import { VehiclesApi } from '../../core/api/vehicles-api';
 import { Session } from '../../core/auth/session';
+import { DisplayPreferences } from '../../core/preferences/display-preferences';
+import { QuantityPipe } from '../../shared/units/quantity-pipe';
 import { VehicleDialog, type VehicleDialogData } from './vehicle-dialog';
 import { FUEL_LABELS } from './vehicle-form';
 import { VehicleLogs } from './vehicle-logs';
 import { canEditVehicles } from './vehicle-roles';
+import { topGearSpeedText } from './vehicle-summary';
 import { VehicleTableCards } from './vehicle-table-cards';
 
-/** One vehicle: its engine, fuel and gearing, its VE tables with their latest revisions, its logs. */
+/**
+ * One vehicle: its engine, fuel and gearing (in the user's units), its VE tables with their
+ * latest revisions, its logs.
+ */
 @Component({
   selector: 'app-vehicle-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -31,6 +37,7 @@ import { VehicleTableCards } from './vehicle-table-cards';
     MatProgressBarModule,
     VehicleLogs,
     VehicleTableCards,
+    QuantityPipe,
   ],
   templateUrl: './vehicle-page.html',
   styleUrl: './vehicle-page.scss',
@@ -39,6 +46,7 @@ export class VehiclePage {
   private readonly api = inject(VehiclesApi);
   private readonly session = inject(Session);
   private readonly dialog = inject(MatDialog);
+  private readonly displayPreferences = inject(DisplayPreferences);
 
   /** The vehicle's id, from the route. */
   readonly id = input.required<string>();
@@ -99,6 +107,11 @@ export class VehiclePage {
 
   /** Fuel names. */
   protected readonly fuelLabels = FUEL_LABELS;
+
+  /** Road speed per 1000 rpm in top gear, in the user's units. */
+  protected topGearSpeed(vehicle: Vehicle): string | null {
+    return topGearSpeedText(vehicle, this.displayPreferences.units());
+  }
 
   /** Opens the dialog on the vehicle; the saved vehicle replaces the one shown. */
   protected openEditDialog(vehicle: Vehicle): void {

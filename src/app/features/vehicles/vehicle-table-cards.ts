@@ -1,10 +1,16 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { RouterLink } from '@angular/router';
 import type { RevisionSummary, VeTableResource } from '@shared/contracts/tables';
-import { REVISION_STATUS_LABELS, breakpointsText, latestRevisions } from './vehicle-detail-text';
+import { DisplayPreferences } from '../../core/preferences/display-preferences';
+import {
+  REVISION_STATUS_LABELS,
+  breakpointsText,
+  latestRevisions,
+  mapRangeText,
+} from './vehicle-detail-text';
 
 /** How many revisions each card lists. */
 const REVISIONS_PER_CARD = 3;
@@ -21,6 +27,7 @@ const REVISIONS_PER_CARD = 3;
           <mat-card-header>
             <mat-card-title>{{ table.name }}</mat-card-title>
             <mat-card-subtitle>{{ breakpoints(table) }}</mat-card-subtitle>
+            <mat-card-subtitle>{{ mapRange(table) }}</mat-card-subtitle>
           </mat-card-header>
           <mat-card-content>
             @let revisions = revisionsOf(table.id);
@@ -116,6 +123,8 @@ const REVISIONS_PER_CARD = 3;
   `,
 })
 export class VehicleTableCards {
+  private readonly displayPreferences = inject(DisplayPreferences);
+
   /** The vehicle's tables, oldest first. */
   readonly tables = input.required<VeTableResource[]>();
 
@@ -130,6 +139,11 @@ export class VehicleTableCards {
 
   /** A table's size. */
   protected readonly breakpoints = breakpointsText;
+
+  /** A table's MAP span in the user's units. */
+  protected mapRange(table: VeTableResource): string {
+    return mapRangeText(table, this.displayPreferences.units());
+  }
 
   /** The newest revisions of a table, or undefined while they load. */
   protected revisionsOf(tableId: string): RevisionSummary[] | undefined {

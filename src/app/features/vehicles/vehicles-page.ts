@@ -24,6 +24,7 @@ import { debounceTime, distinctUntilChanged, map } from 'rxjs';
 import { apiErrorMessage } from '../../core/api/api-error';
 import { VehiclesApi } from '../../core/api/vehicles-api';
 import { Session } from '../../core/auth/session';
+import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { textForRoles } from '../../shared/ui/role-text';
 import { VehicleDialog, type VehicleDialogData } from './vehicle-dialog';
 import {
@@ -69,6 +70,7 @@ export class VehiclesPage {
   private readonly dialog = inject(MatDialog);
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
+  private readonly displayPreferences = inject(DisplayPreferences);
 
   private readonly listState = signal<VehicleListState>(INITIAL_LIST_STATE);
 
@@ -110,12 +112,18 @@ export class VehiclesPage {
   /** Whether the signed-in member may add vehicles. */
   protected readonly canCreate = computed(() => canEditVehicles(this.session.user()?.roles ?? []));
 
-  /** One line on the engine. */
-  protected readonly engine = engineSummary;
+  /** One line on the engine, in the user's units. */
+  protected engine(vehicle: Vehicle): string {
+    return engineSummary(vehicle, this.displayPreferences.units());
+  }
+
   /** The fuel and its ratio. */
   protected readonly fuel = fuelSummary;
-  /** The gearing. */
-  protected readonly gearing = gearingSummary;
+
+  /** The gearing, in the user's units. */
+  protected gearing(vehicle: Vehicle): string {
+    return gearingSummary(vehicle, this.displayPreferences.units());
+  }
 
   /** Keeps rows in place across reloads. */
   protected readonly trackById = (_index: number, vehicle: Vehicle): string => vehicle.id;

@@ -1,0 +1,1 @@
+ALTER TABLE "users" ADD COLUMN "preferences" jsonb DEFAULT '{"units":"metric","mixture":"lambda","theme":"system"}'::jsonb NOT NULL;
