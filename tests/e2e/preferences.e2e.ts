@@ -27,9 +27,9 @@ describe('display preferences', () => {
     await app?.close();
   });
 
-  it('When the demo tuner picks imperial, AFR and dark, then they stay after a reload and the vehicle page uses them', async () => {
+  it('When the demo lead picks imperial, AFR and dark, then they stay after a reload and the vehicle page uses them', async () => {
     const page = await browser.newPage();
-    await signInThroughForm(page, app.url, 'tuner@cellsmith.test', demoPassword());
+    await signInThroughForm(page, app.url, 'lead@cellsmith.test', demoPassword());
     try {
       await openAccountMenu(page);
       await screenshot(page, 'preferences-menu-light');
