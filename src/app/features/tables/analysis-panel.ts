@@ -1,44 +1,85 @@
-import { ChangeDetectionStrategy, Component, computed, input, output, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  output,
+  signal,
+  untracked,
+  viewChild,
+} from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { DecimalPipe } from '@angular/common';
-import { FormsModule } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
+import { MatRadioModule } from '@angular/material/radio';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSliderModule } from '@angular/material/slider';
+import type { AnalysisSettingsBody, ApplyAnalysisRequest } from '@shared/contracts/analyses';
 import type { LogResource } from '@shared/contracts/logs';
+import { map } from 'rxjs';
 import type { AnalysisResource } from '../../core/api/analyses-api';
-import { delayLine, keptLine, logLine } from './analysis-text';
+import {
+  type ApplyValue,
+  applySettingsOf,
+  defaultApplyValue,
+  settingsOfAnalysis,
+  toApplyBody,
+} from './analysis-apply-model';
+import { APPLY_MESSAGE_MAX_LENGTH } from './analysis-setting-ranges';
+import { enableWhen, numberControl } from './analysis-settings-controls';
+import { AnalysisSettingsForm } from './analysis-settings-form';
+import { delayLine, keptLine, lockedLine, logLine, previewSummaryLine } from './analysis-text';
+import { type CellRef, type PreviewInput, summarisePreview } from './proposal-preview-compute';
+import { ProposalPreview } from './proposal-preview';
 import type { TableBusy } from './table-store';
+
+/** What "Run analysis" asks for. */
+export interface AnalyseRequest {
+  /** The chosen logs, in list order. */
+  readonly logIds: string[];
+  /** The settings of the form. */
+  readonly settings: AnalysisSettingsBody;
+}
 
 /** What "Apply as draft" asks for. */
 export interface ApplyRequest {
-  /** Fraction of the correction to apply, 0.1–1. */
-  readonly stepFraction: number;
-  /** Message of the new revision. */
-  readonly message: string;
+  /** The body of `POST /api/analyses/:id/apply`. */
+  readonly body: ApplyAnalysisRequest;
 }
 
 /**
- * The analysis panel: pick parsed logs of the vehicle, run an analysis against the revision
- * shown, read each log's filter funnel and delay, and apply the proposal as a draft revision.
+ * The analysis panel: pick parsed logs of the vehicle and the settings, run an analysis against
+ * the revision shown, read each log's filter funnel and delay, and apply the proposal as a
+ * draft revision to all cells or only the selected ones, with a live preview of the result.
  */
 @Component({
   selector: 'app-analysis-panel',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
+    AnalysisSettingsForm,
     DecimalPipe,
-    FormsModule,
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
     MatInputModule,
+    MatRadioModule,
+    MatSlideToggleModule,
     MatSliderModule,
+    ReactiveFormsModule,
   ],
+  providers: [ProposalPreview],
   templateUrl: './analysis-panel.html',
   styleUrl: './analysis-panel.scss',
 })
 export class AnalysisPanel {
+  private readonly previewer = inject(ProposalPreview);
+
   /** Parsed logs of the vehicle, newest first. */
   readonly logs = input.required<readonly LogResource[]>();
   /** The latest analysis, if any. */
@@ -49,19 +90,58 @@ export class AnalysisPanel {
   readonly baseNumber = input<number | null>(null);
   /** Whether the grid has unsaved edits (an analysis runs on the saved revision). */
   readonly isDirty = input(false);
-  /** Run an analysis of these logs. */
-  readonly analyse = output<string[]>();
+  /** VE of the analysed base revision `[row][col]`, for the preview. */
+  readonly baseValues = input<readonly (readonly number[])[]>([]);
+  /** Cells selected in the grid as `[row, col]`. */
+  readonly selectedCells = input<readonly CellRef[]>([]);
+  /** Locked cells as `[row, col]`: an apply keeps their value. */
+  readonly lockedCells = input<readonly CellRef[]>([]);
+  /** RPM breakpoints of the table (columns). */
+  readonly rpmAxis = input<readonly number[]>([]);
+  /** MAP breakpoints of the table, kPa (rows). */
+  readonly mapAxisKpa = input<readonly number[]>([]);
+  /** The server's refusal of the last run, shown at the field it concerns; null for none. */
+  readonly analyseError = input<string | null>(null);
+
+  /** Run an analysis of these logs with these settings. */
+  readonly analyse = output<AnalyseRequest>();
   /** Apply the analysis as a draft. */
   readonly apply = output<ApplyRequest>();
+  /** The VE the draft would hold `[row][col]`, rounded as stored; null with no analysis. */
+  readonly preview = output<number[][] | null>();
 
+  private readonly settingsForm = viewChild(AnalysisSettingsForm);
   private readonly chosenIds = signal<ReadonlySet<string>>(new Set());
 
-  /** The step fraction of the apply, 0.1–1. */
-  protected readonly stepFraction = signal(0.5);
-  /** The message of the applied revision. */
-  protected readonly message = signal('');
+  /** The apply options. */
+  protected readonly applyForm = new FormGroup({
+    scope: new FormControl<ApplyValue['scope']>('all', { nonNullable: true }),
+    stepFraction: numberControl('apply.stepFraction', 0.5),
+    smooth: numberControl('apply.smooth', 0.3),
+    fill: new FormControl(true, { nonNullable: true }),
+    limitReach: new FormControl(false, { nonNullable: true }),
+    maxReach: numberControl('apply.maxReach', 2),
+    message: new FormControl('', { nonNullable: true }),
+  });
+  private readonly applyValue = toSignal(
+    this.applyForm.valueChanges.pipe(map(() => this.applyForm.getRawValue())),
+    { initialValue: this.applyForm.getRawValue() },
+  );
+  private readonly applyStatus = toSignal(this.applyForm.statusChanges, {
+    initialValue: this.applyForm.status,
+  });
+
+  /** Longest revision message. */
+  protected readonly messageMax = APPLY_MESSAGE_MAX_LENGTH;
   /** Whether any log is chosen. */
   protected readonly hasChoice = computed(() => this.chosenIds().size > 0);
+  /** Whether the settings are all within range. */
+  protected readonly areSettingsValid = computed(() => this.settingsForm()?.isValid() ?? true);
+  /** Settings of the analysis shown (offered to the form as a starting point). */
+  protected readonly analysisSettings = computed(() => {
+    const analysis = this.analysis();
+    return analysis ? settingsOfAnalysis(analysis) : null;
+  });
   /** Per analysed log: its name and report. */
   protected readonly reports = computed(() => {
     const names = new Map(this.logs().map((log) => [log.id, log.fileName]));
@@ -72,9 +152,95 @@ export class AnalysisPanel {
       delay: delayLine(report),
     }));
   });
+  /** Whether "only the selected cells" is chosen while nothing is selected. */
+  protected readonly isSelectionMissing = computed(
+    () => this.applyValue().scope === 'selected' && this.selectedCells().length === 0,
+  );
+  /** The locked cells in words. */
+  protected readonly lockedText = computed(() => lockedLine(this.lockedCells().length));
+  /** The preview's evidence, taken once per analysis (what the worker needs, no more). */
+  private readonly evidence = computed(() =>
+    this.analysis()?.cells.map((row) =>
+      row.map(({ weight, ratio, spread }) => ({ weight, ratio, spread })),
+    ),
+  );
+  /** The apply options the preview depends on (typing the message does not start one). */
+  private readonly previewOptions = computed(
+    (): ApplyValue => ({ ...this.applyValue(), message: '' }),
+    {
+      equal: (a, b) =>
+        a.scope === b.scope &&
+        a.stepFraction === b.stepFraction &&
+        a.smooth === b.smooth &&
+        a.fill === b.fill &&
+        a.limitReach === b.limitReach &&
+        a.maxReach === b.maxReach,
+    },
+  );
+  /** What the preview is computed from; null with no analysis or options out of range. */
+  private readonly previewInput = computed<PreviewInput | null>(() => {
+    const analysis = this.analysis();
+    const cells = this.evidence();
+    const baseValues = this.baseValues();
+    if (!analysis || !cells || baseValues.length === 0 || this.applyStatus() !== 'VALID') {
+      return null;
+    }
+    const value = this.previewOptions();
+    // The selection only matters for "only the selected cells": selecting in the grid while
+    // applying to all cells must not start a new preview.
+    const selected = value.scope === 'selected' ? this.selectedCells() : [];
+    const body = toApplyBody(value, selected, this.lockedCells());
+    return {
+      rpmAxis: this.rpmAxis(),
+      mapAxisKpa: this.mapAxisKpa(),
+      baseValues,
+      cells,
+      settings: applySettingsOf(settingsOfAnalysis(analysis)),
+      apply: {
+        stepFraction: body.stepFraction,
+        smooth: body.smooth,
+        fill: body.fill,
+        maxReach: body.maxReach,
+        lockedCells: body.lockedCells,
+        onlyCells: body.onlyCells,
+      },
+    };
+  });
+  /** Whether a preview is on its way. */
+  protected readonly isPreviewing = this.previewer.isComputing;
+  /** Why the preview could not be computed, or null. */
+  protected readonly previewError = this.previewer.error;
+  /** The preview's changes in words, null while there is none. */
+  protected readonly previewText = computed(() => {
+    const values = this.previewer.values();
+    if (!values) return null;
+    const summary = summarisePreview(this.baseValues(), values);
+    return previewSummaryLine(summary, this.rpmAxis(), this.mapAxisKpa());
+  });
 
   /** A log in words. */
   protected readonly logLine = logLine;
+
+  constructor() {
+    const { fill, limitReach, maxReach } = this.applyForm.controls;
+    enableWhen([fill], [limitReach]);
+    enableWhen([fill, limitReach], [maxReach]);
+    // A new analysis starts the apply options afresh, at its own step fraction.
+    effect(() => {
+      const settings = this.analysisSettings();
+      untracked(() => this.applyForm.reset(defaultApplyValue(settings ?? {})));
+    });
+    // Sync outward: every change of the options, selection or locks asks for a new preview...
+    effect(() => {
+      const previewInput = this.previewInput();
+      untracked(() => this.previewer.request(previewInput));
+    });
+    // ...and every preview that arrives is handed to the workspace.
+    effect(() => {
+      const values = this.previewer.values();
+      untracked(() => this.preview.emit(values));
+    });
+  }
 
   /** Whether `id` is chosen. */
   protected isChosen(id: string): boolean {
@@ -91,17 +257,24 @@ export class AnalysisPanel {
     });
   }
 
-  /** Runs the analysis with the chosen logs, in list order. */
+  /** Runs the analysis with the chosen logs, in list order, and the form's settings. */
   protected run(): void {
-    this.analyse.emit(
-      this.logs()
-        .filter((log) => this.chosenIds().has(log.id))
-        .map((l) => l.id),
-    );
+    const settings = this.settingsForm()?.body();
+    if (!settings) return;
+    const logIds = this.logs()
+      .filter((log) => this.chosenIds().has(log.id))
+      .map((log) => log.id);
+    this.analyse.emit({ logIds, settings });
   }
 
-  /** Applies the analysis at the chosen step. */
+  /** Applies the analysis with the chosen options as a draft. */
   protected applyDraft(): void {
-    this.apply.emit({ stepFraction: this.stepFraction(), message: this.message().trim() });
+    if (this.applyForm.invalid || this.isSelectionMissing()) return;
+    const body = toApplyBody(
+      this.applyForm.getRawValue(),
+      this.selectedCells(),
+      this.lockedCells(),
+    );
+    this.apply.emit({ body });
   }
 }

@@ -1,6 +1,14 @@
 import type { LogResource } from '@shared/contracts/logs';
 import type { LeanFlag, LogFilterReport } from '../../core/api/analyses-api';
-import { delayLine, keptLine, leanFlagLine, logLine } from './analysis-text';
+import {
+  delayLine,
+  keptLine,
+  leanFlagLine,
+  lockedLine,
+  logLine,
+  previewSummaryLine,
+} from './analysis-text';
+import type { PreviewSummary } from './proposal-preview-compute';
 
 const REPORT: LogFilterReport = {
   logId: 'l1',
@@ -56,5 +64,36 @@ describe('analysis text', () => {
     ],
   ] as const)('When the flag is %j, then it reads %j', (flag, line) => {
     expect(leanFlagLine(flag)).toBe(line);
+  });
+
+  const SUMMARY: PreviewSummary = {
+    changed: 12,
+    meanChangePct: 2.345,
+    largestChangePct: -7.96,
+    largestAt: [1, 2],
+    richer: 9,
+    leaner: 3,
+  };
+
+  it.each<[PreviewSummary, string]>([
+    [
+      SUMMARY,
+      '12 cells change: mean +2.3 %, largest \u22128.0 % at 3000 rpm × 70 kPa; 9 richer (VE up), 3 leaner (VE down).',
+    ],
+    [
+      { ...SUMMARY, changed: 1, meanChangePct: 0.01, largestChangePct: 0.01, largestAt: null },
+      '1 cell changes: mean 0.0 %, largest 0.0 %; 9 richer (VE up), 3 leaner (VE down).',
+    ],
+    [{ ...SUMMARY, changed: 0 }, 'No cell changes with these options.'],
+  ])('When the preview summary is %j, then it reads %j', (summary, line) => {
+    expect(previewSummaryLine(summary, [1000, 2000, 3000], [40, 70, 100])).toBe(line);
+  });
+
+  it.each([
+    [0, 'No cells are locked.'],
+    [1, '1 locked cell keeps its value.'],
+    [1200, '1,200 locked cells keep their value.'],
+  ])('When %d cells are locked, then it reads %j', (count, line) => {
+    expect(lockedLine(count)).toBe(line);
   });
 });
