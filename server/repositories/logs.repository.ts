@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import { logChannels, logs, revisions, vehicles, veTables, type LogRow } from '../../db/schema';
 import type {
   LogError,
@@ -44,6 +44,8 @@ export interface VehicleFacts {
   id: string;
   /** The fuel's stoichiometric AFR, to turn AFR columns into lambda. */
   stoichAfr: number;
+  /** Engine displacement, litres: the airflow behind the wideband delay. */
+  displacementL: number;
 }
 
 /** A vehicle of a shop with the facts parsing needs, or null when it is not in that shop. */
@@ -53,7 +55,11 @@ export async function findVehicleFacts(
   vehicleId: string,
 ): Promise<VehicleFacts | null> {
   const [row] = await db
-    .select({ id: vehicles.id, stoichAfr: vehicles.stoichAfr })
+    .select({
+      id: vehicles.id,
+      stoichAfr: vehicles.stoichAfr,
+      displacementL: vehicles.displacementL,
+    })
     .from(vehicles)
     .where(and(eq(vehicles.shopId, shopId), eq(vehicles.id, vehicleId)))
     .limit(1);
@@ -287,4 +293,66 @@ export async function listUnfinishedLogs(db: Executor): Promise<UnfinishedLog[]>
     .from(logs)
     .where(inArray(logs.status, ['queued', 'parsing']))
     .orderBy(logs.createdAt);
+}
+
+/** A revision's values on its table's axes: the VE table an ECU ran. */
+export interface RevisionTable {
+  /** The revision. */
+  revisionId: string;
+  /** The vehicle whose table it is. */
+  vehicleId: string;
+  /** RPM breakpoints. */
+  rpmAxis: number[];
+  /** MAP breakpoints, kPa. */
+  mapAxisKpa: number[];
+  /** VE in percent, rows following `mapAxisKpa`. */
+  values: number[][];
+}
+
+const revisionTableColumns = {
+  revisionId: revisions.id,
+  vehicleId: veTables.vehicleId,
+  rpmAxis: veTables.rpmAxis,
+  mapAxisKpa: veTables.mapAxisKpa,
+  values: revisions.values,
+};
+
+/** A revision of a shop with its table's axes, or null when it is not in that shop. */
+export async function findRevisionTable(
+  db: Executor,
+  shopId: string,
+  revisionId: string,
+): Promise<RevisionTable | null> {
+  const [row] = await db
+    .select(revisionTableColumns)
+    .from(revisions)
+    .innerJoin(veTables, eq(veTables.id, revisions.tableId))
+    .where(and(eq(revisions.shopId, shopId), eq(revisions.id, revisionId)))
+    .limit(1);
+  return row ?? null;
+}
+
+/**
+ * The head revision of a vehicle's first table (oldest first, as the vehicle page lists them),
+ * or null when the vehicle has no table with a revision. A table whose head is not recorded
+ * gives its highest-numbered revision.
+ */
+export async function findFirstTableHead(
+  db: Executor,
+  shopId: string,
+  vehicleId: string,
+): Promise<RevisionTable | null> {
+  const [row] = await db
+    .select(revisionTableColumns)
+    .from(veTables)
+    .innerJoin(revisions, eq(revisions.tableId, veTables.id))
+    .where(and(eq(veTables.shopId, shopId), eq(veTables.vehicleId, vehicleId)))
+    .orderBy(
+      asc(veTables.createdAt),
+      asc(veTables.id),
+      desc(sql`${revisions.id} = ${veTables.headRevisionId}`),
+      desc(revisions.number),
+    )
+    .limit(1);
+  return row ?? null;
 }

@@ -1,4 +1,4 @@
-import { and, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import { mappingPresets } from '../../db/schema';
 import type { ColumnMapping } from '../../shared/import';
 import type { Executor } from '../db';
@@ -13,7 +13,17 @@ export interface MappingPreset {
   headerSignature: string;
   /** The mapping as its author gave it (unchecked JSON: check before use). */
   mapping: unknown;
+  /** When it was last saved (the table's `created_at`, moved on at each save). */
+  updatedAt: Date;
 }
+
+const presetColumns = {
+  id: mappingPresets.id,
+  name: mappingPresets.name,
+  headerSignature: mappingPresets.headerSignature,
+  mapping: mappingPresets.mapping,
+  updatedAt: mappingPresets.createdAt,
+};
 
 /** A shop's preset for a header signature, or null when the shop has none. */
 export async function findPresetBySignature(
@@ -22,12 +32,7 @@ export async function findPresetBySignature(
   headerSignature: string,
 ): Promise<MappingPreset | null> {
   const [row] = await db
-    .select({
-      id: mappingPresets.id,
-      name: mappingPresets.name,
-      headerSignature: mappingPresets.headerSignature,
-      mapping: mappingPresets.mapping,
-    })
+    .select(presetColumns)
     .from(mappingPresets)
     .where(
       and(eq(mappingPresets.shopId, shopId), eq(mappingPresets.headerSignature, headerSignature)),
@@ -36,9 +41,19 @@ export async function findPresetBySignature(
   return row ?? null;
 }
 
+/** A shop's presets, by header signature. */
+export async function listPresets(db: Executor, shopId: string): Promise<MappingPreset[]> {
+  return db
+    .select(presetColumns)
+    .from(mappingPresets)
+    .where(eq(mappingPresets.shopId, shopId))
+    .orderBy(asc(mappingPresets.headerSignature));
+}
+
 /**
  * Saves a shop's mapping for a header signature: a new preset, or the newest mapping replacing
- * the one saved before for the same header (one preset per header and shop).
+ * the one saved before for the same header (one preset per header and shop). The row has no
+ * separate update time, so `created_at` moves on with each save and reads as "last saved".
  */
 export async function savePreset(
   db: Executor,
@@ -55,6 +70,7 @@ export async function savePreset(
         name: sql`excluded.name`,
         mapping: sql`excluded.mapping`,
         createdBy: sql`excluded.created_by`,
+        createdAt: sql`now()`,
       },
     });
 }

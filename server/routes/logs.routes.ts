@@ -1,8 +1,13 @@
 import { Router } from 'express';
 import {
   logIdParamSchema,
+  logSeriesQuerySchema,
   logVehicleParamSchema,
+  mappingPresetListQuerySchema,
+  mappingPresetParamSchema,
   uploadLogFieldsSchema,
+  type LogSeriesQuery,
+  type MappingPresetListQuery,
   type UploadLogFields,
 } from '../../shared/contracts/logs';
 import type { AppContext } from '../context';
@@ -10,11 +15,22 @@ import { currentUser, requireRoles, requireSignedIn } from '../middleware/auth';
 import { receiveLogUpload } from '../middleware/log-upload';
 import { validate, validated } from '../middleware/validate';
 import { receivedFileOf } from '../services/log-storage.service';
-import { getLog, listVehicleLogs, requireVehicle, uploadLog } from '../services/logs.service';
+import { getLogSeries } from '../services/log-series';
+import {
+  getLog,
+  getMappingPreset,
+  listMappingPresets,
+  listVehicleLogs,
+  requireVehicle,
+  uploadLog,
+} from '../services/logs.service';
 
 type IdParams = { id: string };
 
-/** Log routes: upload (multipart, parsed in the background), one log, a vehicle's logs. */
+/**
+ * Log routes: upload (multipart, parsed in the background), one log, a vehicle's logs, a log's
+ * bucketed series for the chart, and the shop's saved column mappings.
+ */
 export function logRoutes(ctx: AppContext): Router {
   const router = Router();
 
@@ -59,6 +75,37 @@ export function logRoutes(ctx: AppContext): Router {
     async (req, res) => {
       const { params } = validated<unknown, unknown, IdParams>(res);
       res.json(await getLog(ctx.db, currentUser(req), params.id));
+    },
+  );
+
+  router.get(
+    '/logs/:id/series',
+    requireSignedIn,
+    validate({ params: logIdParamSchema, query: logSeriesQuerySchema }),
+    async (req, res) => {
+      const { params, query } = validated<unknown, LogSeriesQuery, IdParams>(res);
+      res.json(await getLogSeries(ctx.db, currentUser(req), params.id, query));
+    },
+  );
+
+  router.get(
+    '/mapping-presets',
+    requireSignedIn,
+    validate({ query: mappingPresetListQuerySchema }),
+    async (req, res) => {
+      const { query } = validated<unknown, MappingPresetListQuery>(res);
+      const items = await listMappingPresets(ctx.db, currentUser(req), query.signature);
+      res.json({ items, total: items.length });
+    },
+  );
+
+  router.get(
+    '/mapping-presets/:signature',
+    requireSignedIn,
+    validate({ params: mappingPresetParamSchema }),
+    async (req, res) => {
+      const { params } = validated<unknown, unknown, { signature: string }>(res);
+      res.json(await getMappingPreset(ctx.db, currentUser(req), params.signature));
     },
   );
 

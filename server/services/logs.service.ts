@@ -3,6 +3,7 @@ import type { ColumnarLog, Channel } from '../../shared/core/channels';
 import {
   columnMappingSchema,
   type LogResource,
+  type MappingPreset as MappingPresetResource,
   type MappingSource,
   type UploadLogFields,
   type UploadLogResponse,
@@ -31,7 +32,12 @@ import {
   readLogChannels,
   type VehicleFacts,
 } from '../repositories/logs.repository';
-import { findPresetBySignature, savePreset } from '../repositories/mapping-presets.repository';
+import {
+  findPresetBySignature,
+  listPresets,
+  savePreset,
+  type MappingPreset,
+} from '../repositories/mapping-presets.repository';
 import type { SessionUserRecord } from '../repositories/users.repository';
 import { decodeChannel } from './channel-codec';
 import {
@@ -274,4 +280,47 @@ export async function loadLogChannels(
     channels[row.channel] = await decodeChannel(row.data, row.encoding, row.sampleCount);
   }
   return { length: log.sampleCount, channels };
+}
+
+/** A stored preset as the API answers it; null when its mapping no longer passes the schema. */
+function presetResource(preset: MappingPreset): MappingPresetResource | null {
+  const mapping = columnMappingSchema.safeParse(preset.mapping);
+  if (!mapping.success) return null;
+  return {
+    signature: preset.headerSignature,
+    name: preset.name,
+    mapping: mapping.data,
+    updatedAt: preset.updatedAt.toISOString(),
+  };
+}
+
+/**
+ * The shop's saved mapping for a header signature (as `headerSignature` of shared/import makes
+ * it); 404 when the shop has none, or only one the upload would not use any more either.
+ */
+export async function getMappingPreset(
+  db: Database,
+  user: SessionUserRecord,
+  signature: string,
+): Promise<MappingPresetResource> {
+  const preset = await findPresetBySignature(db, user.shopId, signature);
+  const resource = preset && presetResource(preset);
+  if (!resource) throw notFound('Mapping preset');
+  return resource;
+}
+
+/**
+ * The shop's saved mappings, by header signature; with `signature`, only that header's (none
+ * or one), so a client can ask whether a preset exists without an error answer.
+ */
+export async function listMappingPresets(
+  db: Database,
+  user: SessionUserRecord,
+  signature?: string,
+): Promise<MappingPresetResource[]> {
+  const presets =
+    signature === undefined
+      ? await listPresets(db, user.shopId)
+      : [await findPresetBySignature(db, user.shopId, signature)].filter((p) => p !== null);
+  return presets.flatMap((preset) => presetResource(preset) ?? []);
 }

@@ -193,3 +193,138 @@ export const logSchema = z.object({
 
 /** A log as the API returns it. */
 export type LogResource = z.infer<typeof logSchema>;
+
+/** The header signature of a mapping preset in a path (`/mapping-presets/:signature`). */
+export const mappingPresetParamSchema = z.object({
+  signature: z
+    .string()
+    .min(1, 'signature must not be empty')
+    .max(20_000, 'signature must be at most 20 000 characters'),
+});
+
+/** Query of `GET /api/mapping-presets`: only the preset of one header signature, if given. */
+export const mappingPresetListQuerySchema = z
+  .object({
+    signature: z
+      .string()
+      .min(1, 'signature must not be empty')
+      .max(20_000, 'signature must be at most 20 000 characters')
+      .optional(),
+  })
+  .strict();
+
+/** Query of `GET /api/mapping-presets`, parsed. */
+export type MappingPresetListQuery = z.infer<typeof mappingPresetListQuerySchema>;
+
+/** A shop's saved column mapping for one header, as `GET /api/mapping-presets/:signature` answers. */
+export const mappingPresetSchema = z.object({
+  /** The header it is for (`headerSignature` of shared/import). */
+  signature: z.string(),
+  /** A name for people ("Columns of <file>"). */
+  name: z.string(),
+  /** The mapping as it was given with an upload. */
+  mapping: columnMappingSchema,
+  /** When it was last saved. */
+  updatedAt: z.string(),
+});
+
+/** A shop's saved column mapping for one header. */
+export type MappingPreset = z.infer<typeof mappingPresetSchema>;
+
+/** Fewest and most buckets `GET /api/logs/:id/series` returns, and its default. */
+export const SERIES_POINTS = { min: 100, max: 5000, default: 1500 } as const;
+
+/** An optional number of seconds in a query string (empty counts as absent). */
+const querySeconds = (name: string) =>
+  z.preprocess(
+    emptyAsAbsent,
+    z.coerce
+      .number({ error: `${name} must be a number of seconds` })
+      .refine(Number.isFinite, `${name} must be a finite number of seconds`)
+      .optional(),
+  );
+
+/** Query of `GET /api/logs/:id/series`. */
+export const logSeriesQuerySchema = z
+  .object({
+    points: z.preprocess(
+      emptyAsAbsent,
+      z.coerce
+        .number({ error: 'points must be a whole number' })
+        .int('points must be a whole number')
+        .min(SERIES_POINTS.min, `points must be at least ${SERIES_POINTS.min}`)
+        .max(SERIES_POINTS.max, `points must be at most ${SERIES_POINTS.max}`)
+        .default(SERIES_POINTS.default),
+    ),
+    fromS: querySeconds('fromS'),
+    toS: querySeconds('toS'),
+  })
+  .strict()
+  .refine((q) => q.fromS === undefined || q.toS === undefined || q.toS > q.fromS, {
+    path: ['toS'],
+    message: 'toS must be later than fromS',
+  });
+
+/** Query of `GET /api/logs/:id/series`, parsed. */
+export type LogSeriesQuery = z.infer<typeof logSeriesQuerySchema>;
+
+/** Per bucket: the lowest, highest and mean value (null where the bucket has none). */
+export const seriesEnvelopeSchema = z.object({
+  min: z.array(z.number().nullable()),
+  max: z.array(z.number().nullable()),
+  mean: z.array(z.number().nullable()),
+});
+
+/** Per bucket: the lowest, highest and mean value. */
+export type SeriesEnvelope = z.infer<typeof seriesEnvelopeSchema>;
+
+/** One line of a filter funnel (as an analysis's `filterReport.logs[].funnel`). */
+export const funnelLineSchema = z.object({
+  rule: z.string(),
+  label: z.string(),
+  status: z.enum(['applied', 'skipped']),
+  note: z.string().optional(),
+  removed: z.number(),
+  remaining: z.number(),
+});
+
+/** One line of a filter funnel. */
+export type FunnelLine = z.infer<typeof funnelLineSchema>;
+
+/** The wideband delay an analysis would apply to the log. */
+export const delayUsedSchema = z.object({
+  tau0S: z.number(),
+  kGrams: z.number(),
+  source: z.enum(['estimate', 'settings']),
+});
+
+/** Answer of `GET /api/logs/:id/series`: a bucketed window of the log and its default filter. */
+export const logSeriesSchema = z.object({
+  /** Each bucket's time, s (its middle; a sample's own time when the window is not bucketed). */
+  timeS: z.array(z.number()),
+  channels: z.object({
+    rpm: seriesEnvelopeSchema,
+    mapKpa: seriesEnvelopeSchema,
+    lambda: seriesEnvelopeSchema,
+    lambdaTarget: seriesEnvelopeSchema,
+    /** Null when the log has no throttle channel. */
+    throttlePct: seriesEnvelopeSchema.nullable(),
+  }),
+  /** Per bucket the fraction 0–1 of its samples the default filter keeps; null without a table. */
+  kept: z.array(z.number().nullable()).nullable(),
+  /** The default filter's funnel over the whole log; null when the vehicle has no table. */
+  funnel: z.array(funnelLineSchema).nullable(),
+  /** The delay applied before filtering; null when the vehicle has no table. */
+  delayUsed: delayUsedSchema.nullable(),
+  /** The revision whose VE gave the airflow behind the delay; null when the vehicle has none. */
+  revisionId: z.string().nullable(),
+  /** The window used, s: the request clipped to the log. */
+  rangeS: z.tuple([z.number(), z.number()]),
+  /** Samples inside the window. */
+  sampleCount: z.number(),
+  /** Whether every bucket is one sample. */
+  isExact: z.boolean(),
+});
+
+/** Answer of `GET /api/logs/:id/series`. */
+export type LogSeries = z.infer<typeof logSeriesSchema>;

@@ -1,8 +1,19 @@
-import { HttpClient, type HttpEvent } from '@angular/common/http';
+import {
+  HttpClient,
+  HttpParams,
+  type HttpEvent,
+  type HttpParameterCodec,
+} from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { Observable } from 'rxjs';
+import { map, type Observable } from 'rxjs';
 import type { ListResponse } from '@shared/contracts/errors';
-import type { LogKind, LogResource, UploadLogResponse } from '@shared/contracts/logs';
+import type {
+  LogKind,
+  LogResource,
+  LogSeries,
+  MappingPreset,
+  UploadLogResponse,
+} from '@shared/contracts/logs';
 
 /** What an upload sends beside the file itself. */
 export interface LogUploadFields {
@@ -13,6 +24,27 @@ export interface LogUploadFields {
   /** The revision the ECU ran while the log was recorded. */
   ecuRevisionId?: string;
 }
+
+/** Which part of a log's series to ask for; absent fields take the server's defaults. */
+export interface LogSeriesWindow {
+  /** Most buckets, 100–5000 (server default 1500). */
+  points?: number;
+  /** Start of the window, s. */
+  fromS?: number;
+  /** End of the window, s. */
+  toS?: number;
+}
+
+/**
+ * Encodes query values fully. Angular's default codec leaves `+` as it is, which servers read
+ * as a space, and a column name may hold a `+`.
+ */
+const STRICT_QUERY_CODEC: HttpParameterCodec = {
+  encodeKey: (key) => encodeURIComponent(key),
+  encodeValue: (value) => encodeURIComponent(value),
+  decodeKey: (key) => decodeURIComponent(key),
+  decodeValue: (value) => decodeURIComponent(value),
+};
 
 /** HTTP client of the logs recorded on vehicles. */
 @Injectable({ providedIn: 'root' })
@@ -50,5 +82,31 @@ export class LogsApi {
       body,
       { reportProgress: true, observe: 'events' },
     );
+  }
+
+  /**
+   * `GET /api/logs/:id/series`: the log (or a window of it) bucketed for a chart, with the share
+   * of each bucket the default filter keeps, its funnel and the delay used.
+   */
+  series(id: string, window: LogSeriesWindow = {}): Observable<LogSeries> {
+    const params: Record<string, number> = {};
+    for (const [key, value] of Object.entries(window)) {
+      if (value !== undefined) params[key] = value;
+    }
+    return this.http.get<LogSeries>(`/api/logs/${encodeURIComponent(id)}/series`, { params });
+  }
+
+  /**
+   * The shop's saved mapping for a header signature (as `headerSignature` of shared/import makes
+   * it), or null when the shop has none. Asked through `GET /api/mapping-presets?signature=`,
+   * whose answer is a list of none or one: "no preset" is an ordinary answer during an upload,
+   * not an error for the browser to log.
+   */
+  findMappingPreset(signature: string): Observable<MappingPreset | null> {
+    return this.http
+      .get<ListResponse<MappingPreset>>('/api/mapping-presets', {
+        params: new HttpParams({ encoder: STRICT_QUERY_CODEC, fromObject: { signature } }),
+      })
+      .pipe(map((res) => res.items[0] ?? null));
   }
 }

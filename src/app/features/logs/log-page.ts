@@ -10,6 +10,7 @@ import { apiErrorMessage, isHttpStatus } from '../../core/api/api-error';
 import { LogsApi } from '../../core/api/logs-api';
 import { VehiclesApi } from '../../core/api/vehicles-api';
 import { mappingRows, summaryRows } from './log-rows';
+import { LogSeriesChart } from './log-series-chart';
 import {
   MAPPING_SOURCE_LABELS,
   formatBytes,
@@ -24,7 +25,11 @@ const POLL_MS = 500;
 /** How many of the reported problems are listed. */
 const SHOWN_PROBLEMS = 20;
 
-/** One log: its facts, the mapping used, the channel summary and the parse report. */
+/**
+ * One log: its facts, the mapping used, a time-series chart with the filter's verdict (deferred
+ * until it scrolls into view, so the charts library loads only then), the channel summary and the
+ * parse report.
+ */
 @Component({
   selector: 'app-log-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,6 +40,7 @@ const SHOWN_PROBLEMS = 20;
     MatButtonModule,
     MatIconModule,
     MatProgressBarModule,
+    LogSeriesChart,
   ],
   templateUrl: './log-page.html',
   styleUrl: './log-page.scss',
