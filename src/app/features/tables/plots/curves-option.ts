@@ -125,6 +125,8 @@ export function curvesOption(input: CurvesInput): CurvesOption {
       inactiveColor: theme.gridLine,
     },
     tooltip: {
+      // Drawn on the canvas: an HTML tooltip carries inline styles the CSP refuses.
+      renderMode: 'richText',
       trigger: 'axis',
       backgroundColor: theme.surface,
       borderColor: theme.gridLine,

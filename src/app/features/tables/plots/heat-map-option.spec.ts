@@ -124,10 +124,10 @@ describe('heat map option', () => {
   });
 
   it.each<[HeatLayer, number, string]>([
-    ['ve', 82.25, '2000 rpm · 100 kPa<br>VE 82.3 %'],
-    ['proposal', 60, '2000 rpm · 100 kPa<br>Proposed VE 60.0 %'],
-    ['change', -3.04, '2000 rpm · 100 kPa<br>Change \u22123.0 % (less fuel)'],
-    ['lambdaError', 6.44, '2000 rpm · 100 kPa<br>Lambda error ▲ +6.4 % lean'],
+    ['ve', 82.25, '2000 rpm · 100 kPa\nVE 82.3 %'],
+    ['proposal', 60, '2000 rpm · 100 kPa\nProposed VE 60.0 %'],
+    ['change', -3.04, '2000 rpm · 100 kPa\nChange \u22123.0 % (less fuel)'],
+    ['lambdaError', 6.44, '2000 rpm · 100 kPa\nLambda error ▲ +6.4 % lean'],
   ])('When the %s tooltip shows %p, then it reads %j', (layer, value, text) => {
     expect(heatTooltip(layer, 2000, 100, value)).toBe(text);
   });
@@ -139,7 +139,7 @@ describe('heat map option', () => {
     };
     const params = { value: [2, 0, 0, -20] };
     expect(option.tooltip.formatter(params)).toBe(
-      '3000 rpm · 40 kPa<br>Lambda error ▼ \u221220.0 % rich',
+      '3000 rpm · 40 kPa\nLambda error ▼ \u221220.0 % rich',
     );
     expect(option.series[0].label.formatter(params)).toBe('\u221220.0');
   });

@@ -146,13 +146,13 @@ export function heatTooltip(layer: HeatLayer, rpm: number, mapKpa: number, value
   const where = `${rpm} rpm · ${mapKpa} kPa`;
   switch (layer) {
     case 've':
-      return `${where}<br>VE ${value.toFixed(1)} %`;
+      return `${where}\nVE ${value.toFixed(1)} %`;
     case 'proposal':
-      return `${where}<br>Proposed VE ${value.toFixed(1)} %`;
+      return `${where}\nProposed VE ${value.toFixed(1)} %`;
     case 'change':
-      return `${where}<br>Change ${signed(value)} % (${value >= 0 ? 'more fuel' : 'less fuel'})`;
+      return `${where}\nChange ${signed(value)} % (${value >= 0 ? 'more fuel' : 'less fuel'})`;
     case 'lambdaError':
-      return `${where}<br>Lambda error ${lambdaErrorText(value)}`;
+      return `${where}\nLambda error ${lambdaErrorText(value)}`;
   }
 }
 
@@ -197,6 +197,8 @@ export function heatMapOption(input: HeatMapInput): HeatMapOption {
     textStyle: { color: theme.text },
     grid: { left: 64, right: 16, top: 16, bottom: 48 },
     tooltip: {
+      // Drawn on the canvas: an HTML tooltip carries inline styles the CSP refuses.
+      renderMode: 'richText',
       backgroundColor: theme.surface,
       borderColor: theme.gridLine,
       textStyle: { color: theme.text },

@@ -100,7 +100,7 @@ describe('scatter option', () => {
   });
 
   it('When a sample is pointed at, then the tooltip tells where, how lean and which log', () => {
-    const text = '2,500 rpm · 90.0 kPa<br>Lambda error ▼ \u22122.0 % rich<br>Log 1';
+    const text = '2,500 rpm · 90.0 kPa\nLambda error ▼ \u22122.0 % rich\nLog 1';
     expect(sampleTooltip([2500, 90, -2, 0])).toBe(text);
     expect(option.tooltip.formatter({ value: [2500, 90, -2, 0] })).toBe(text);
   });

@@ -86,8 +86,8 @@ function dataRange(values: readonly number[], step: number): number[] {
 export function sampleTooltip(datum: SampleDatum): string {
   const [rpm, mapKpa, errorPct, log] = datum;
   return (
-    `${grouped(rpm)} rpm · ${mapKpa.toFixed(1)} kPa<br>` +
-    `Lambda error ${lambdaErrorText(errorPct)}<br>Log ${log + 1}`
+    `${grouped(rpm)} rpm · ${mapKpa.toFixed(1)} kPa\n` +
+    `Lambda error ${lambdaErrorText(errorPct)}\nLog ${log + 1}`
   );
 }
 
@@ -148,6 +148,8 @@ export function scatterOption(input: ScatterInput): ScatterOption {
       inactiveColor: theme.gridLine,
     },
     tooltip: {
+      // Drawn on the canvas: an HTML tooltip carries inline styles the CSP refuses.
+      renderMode: 'richText',
       trigger: 'item',
       backgroundColor: theme.surface,
       borderColor: theme.gridLine,
