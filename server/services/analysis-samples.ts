@@ -1,12 +1,9 @@
 import { z } from 'zod';
-import { veAtSamples } from '../../shared/accumulate';
-import { alignLambda } from '../../shared/align';
 import type { AnalysisSamples, AnalysisSamplesQuery } from '../../shared/contracts/analyses';
 import { requireChannel, type ColumnarLog } from '../../shared/core/channels';
 import type { VeTable } from '../../shared/core/table';
-import { DEFAULT_FILTER_RULES, filterSamples, type FilterRule } from '../../shared/filter';
-import { airMassFlowGps } from '../../shared/physics';
-import type { AnalysisSettings } from '../../shared/pipeline';
+import { DEFAULT_FILTER_RULES, type FilterRule } from '../../shared/filter';
+import { prepareLog, type AnalysisSettings } from '../../shared/pipeline';
 import type { Database } from '../db';
 import { conflict, notFound } from '../errors/app-error';
 import { findAnalysis } from '../repositories/analyses.repository';
@@ -37,32 +34,9 @@ export interface KeptSamples {
   readonly lambdaErrorPct: Float64Array;
 }
 
-/** Speed-density airflow per sample, g/s, from the VE (%) the ECU ran; IAT 25 °C where absent. */
-function airflowFromTable(log: ColumnarLog, veUsed: Float64Array, displacementL: number) {
-  const rpm = requireChannel(log, 'rpm');
-  const map = requireChannel(log, 'map');
-  const iat = log.channels.iat;
-  const out = new Float64Array(log.length);
-  for (let i = 0; i < log.length; i++) {
-    const iatC = iat && Number.isFinite(iat[i]) ? (iat[i] as number) : 25;
-    const ok = (rpm[i] as number) > 0 && (map[i] as number) > 0 && (veUsed[i] as number) > 0;
-    out[i] = ok
-      ? airMassFlowGps(
-          (veUsed[i] as number) / 100,
-          map[i] as number,
-          iatC,
-          displacementL,
-          rpm[i] as number,
-        )
-      : NaN;
-  }
-  return out;
-}
-
 /**
- * The samples of one log that an analysis kept, found again by the same steps `analyseLogs`
- * takes before accumulating: the VE the ECU ran → the airflow behind the delay → the lambda
- * shifted by the delay the analysis used → the filter rules. Samples the accumulation would skip
+ * The samples of one log that an analysis kept, found again by the steps `analyseLogs` takes
+ * before accumulating (`prepareLog`), with the delay the analysis used for this log. Samples the accumulation would skip
  * (a missing or non-positive lambda, speed or MAP, no VE) are left out as well, so what is
  * returned is exactly what was spread over the cells. Pure: the inputs are not changed.
  */
@@ -75,10 +49,12 @@ export function keptSamplesOfLog(
   const { log } = input;
   const rpm = requireChannel(log, 'rpm');
   const map = requireChannel(log, 'map');
-  const veUsed = veAtSamples(input.ecuTable ?? base, rpm, map);
-  const airflowGps = airflowFromTable(log, veUsed, displacementL);
-  const aligned = alignLambda(log, { ...input.delay, airflowGps }).log;
-  const { keep } = filterSamples(aligned, rules);
+  const { veUsed, aligned, keep } = prepareLog(log, {
+    ecuTable: input.ecuTable ?? base,
+    displacementL,
+    delay: { ...input.delay, estimate: false },
+    rules,
+  });
   const lambda = requireChannel(aligned, 'lambda');
   const target = requireChannel(aligned, 'lambdaTarget');
   const stft = aligned.channels.stft;

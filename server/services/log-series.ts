@@ -1,5 +1,3 @@
-import { veAtSamples } from '../../shared/accumulate';
-import { alignLambda, estimateLambdaDelay } from '../../shared/align';
 import { requireChannel, type ColumnarLog } from '../../shared/core/channels';
 import type { VeTable } from '../../shared/core/table';
 import type {
@@ -8,8 +6,7 @@ import type {
   LogSeriesQuery,
   SeriesEnvelope,
 } from '../../shared/contracts/logs';
-import { DEFAULT_FILTER_RULES, filterSamples } from '../../shared/filter';
-import { airMassFlowGps } from '../../shared/physics';
+import { prepareLog } from '../../shared/pipeline';
 import { bucketSeries, seriesWindow, type ChannelEnvelope } from '../../shared/series';
 import type { Database } from '../db';
 import { conflict, notFound } from '../errors/app-error';
@@ -34,42 +31,17 @@ export interface DefaultFilterView {
   readonly delayUsed: NonNullable<LogSeries['delayUsed']>;
 }
 
-/** Delay figures an analysis falls back on when the log's own estimate is poor (its defaults). */
-const FALLBACK_DELAY = { tau0S: 0.1, kGrams: 1 } as const;
-
 /**
- * Runs the first half of `analyseLogs` (shared/pipeline) on one log with default settings:
- * airflow from the VE the ECU ran, the log's own delay estimate when not poor, lambda shifted by
- * that delay, then the default filter rules. It repeats the pipeline's steps because the
- * pipeline does not hand out its per-sample keep mask; tests/api/logs-series.spec.ts checks that
- * the funnel and delay equal an analysis's, so the two cannot drift apart unnoticed.
+ * The first half of an analysis with no settings (`prepareLog` of shared/pipeline, as
+ * `analyseLogs` runs it) on one log: its keep mask, funnel and the delay used.
  */
 export function defaultFilterView(
   log: ColumnarLog,
   ecuTable: VeTable,
   displacementL: number,
 ): DefaultFilterView {
-  const rpm = requireChannel(log, 'rpm');
-  const map = requireChannel(log, 'map');
-  const veUsed = veAtSamples(ecuTable, rpm, map);
-  const iat = log.channels.iat;
-  const airflowGps = new Float64Array(log.length);
-  for (let i = 0; i < log.length; i++) {
-    // 25 °C where the log has no intake temperature, as the pipeline assumes.
-    const iatC = iat && Number.isFinite(iat[i]) ? iat[i] : 25;
-    const isKnown = rpm[i] > 0 && map[i] > 0 && veUsed[i] > 0;
-    airflowGps[i] = isKnown
-      ? airMassFlowGps(veUsed[i] / 100, map[i], iatC, displacementL, rpm[i])
-      : NaN;
-  }
-  const estimate = estimateLambdaDelay(log, { airflowGps });
-  const delayUsed =
-    estimate.quality !== 'poor' && estimate.method !== 'none'
-      ? { tau0S: estimate.tau0S, kGrams: estimate.kGrams, source: 'estimate' as const }
-      : { ...FALLBACK_DELAY, source: 'settings' as const };
-  const aligned = alignLambda(log, { ...delayUsed, airflowGps }).log;
-  const filtered = filterSamples(aligned, DEFAULT_FILTER_RULES);
-  return { keep: filtered.keep, funnel: filtered.funnel, delayUsed };
+  const { keep, funnel, delayUsed } = prepareLog(log, { ecuTable, displacementL });
+  return { keep, funnel, delayUsed };
 }
 
 /** What a log's series is drawn from: its channels and the default filter's verdict. */

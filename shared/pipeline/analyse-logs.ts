@@ -1,10 +1,10 @@
-import { accumulateCells, veAtSamples, type CellStats } from '../accumulate';
-import { alignLambda, estimateLambdaDelay, type LambdaDelayEstimate } from '../align';
+import { accumulateCells, type CellStats } from '../accumulate';
+import type { LambdaDelayEstimate } from '../align';
 import { requireChannel, type ColumnarLog } from '../core/channels';
 import { tableToGrid, validateTable, type VeTable } from '../core/table';
-import { airMassFlowGps } from '../physics';
 import { flagLeanCells, proposeTable, type LeanFlag, type Proposal } from '../correct';
-import { DEFAULT_FILTER_RULES, filterSamples, type FilterRule, type FunnelStep } from '../filter';
+import { DEFAULT_FILTER_RULES, type FilterRule, type FunnelStep } from '../filter';
+import { prepareLog } from './prepare-log';
 
 /** One log to analyse, with the table the ECU ran when it was recorded. */
 export interface AnalysisLog {
@@ -93,32 +93,6 @@ function concat(parts: readonly Float64Array[]): Float64Array {
   return out;
 }
 
-/** Speed-density airflow per sample, g/s, from the VE (%) the ECU ran at each sample. */
-function airflowFromTable(
-  log: ColumnarLog,
-  veUsed: Float64Array,
-  displacementL: number,
-): Float64Array {
-  const rpm = requireChannel(log, 'rpm');
-  const map = requireChannel(log, 'map');
-  const iat = log.channels.iat;
-  const out = new Float64Array(log.length);
-  for (let i = 0; i < log.length; i++) {
-    const iatC = iat && Number.isFinite(iat[i]) ? (iat[i] as number) : 25;
-    const ok = (rpm[i] as number) > 0 && (map[i] as number) > 0 && (veUsed[i] as number) > 0;
-    out[i] = ok
-      ? airMassFlowGps(
-          (veUsed[i] as number) / 100,
-          map[i] as number,
-          iatC,
-          displacementL,
-          rpm[i] as number,
-        )
-      : NaN;
-  }
-  return out;
-}
-
 function optionalChannel(log: ColumnarLog, channel: 'stft' | 'ltft'): Float64Array {
   return log.channels[channel] ?? new Float64Array(log.length);
 }
@@ -157,22 +131,13 @@ export function analyseLogs(
     if (log.length === 0) throw new Error(`analyseLogs: log ${index} has no samples`);
     const rawRpm = requireChannel(log, 'rpm');
     const rawMap = requireChannel(log, 'map');
-    const veUsed = veAtSamples(item.ecuTable ?? base, rawRpm, rawMap);
-    // The airflow behind the delay, from the table the ECU ran: far closer than one nominal VE
-    // (which misjudges overrun flow by more than half), so the log's own delay estimate holds.
-    const airflowGps = airflowFromTable(log, veUsed, engine.displacementL);
-    const estimate = delay.estimate === false ? null : estimateLambdaDelay(log, { airflowGps });
-    const useEstimate =
-      estimate !== null && estimate.quality !== 'poor' && estimate.method !== 'none';
-    const delayUsed = useEstimate
-      ? { tau0S: estimate.tau0S, kGrams: estimate.kGrams, source: 'estimate' as const }
-      : { tau0S: delay.tau0S ?? 0.1, kGrams: delay.kGrams ?? 1, source: 'settings' as const };
-    const aligned = alignLambda(log, {
-      tau0S: delayUsed.tau0S,
-      kGrams: delayUsed.kGrams,
-      airflowGps,
-    }).log;
-    const filtered = filterSamples(aligned, rules);
+    const prepared = prepareLog(log, {
+      ecuTable: item.ecuTable ?? base,
+      displacementL: engine.displacementL,
+      delay,
+      rules,
+    });
+    const { veUsed, aligned } = prepared;
     parts.rpm.push(rawRpm);
     parts.map.push(rawMap);
     parts.lambda.push(requireChannel(aligned, 'lambda'));
@@ -180,13 +145,13 @@ export function analyseLogs(
     parts.stft.push(optionalChannel(aligned, 'stft'));
     parts.ltft.push(optionalChannel(aligned, 'ltft'));
     parts.veUsed.push(veUsed);
-    keepParts.push(filtered.keep);
+    keepParts.push(prepared.keep);
     contributions.push({
       samples: log.length,
-      kept: filtered.keep.reduce((n, k) => n + (k ? 1 : 0), 0),
-      funnel: filtered.funnel,
-      delayEstimate: estimate,
-      delayUsed,
+      kept: prepared.keep.reduce((n, k) => n + (k ? 1 : 0), 0),
+      funnel: prepared.funnel,
+      delayEstimate: prepared.delayEstimate,
+      delayUsed: prepared.delayUsed,
     });
   }
 

@@ -1,2 +1,3 @@
 export * from './analyse-logs';
 export * from './apply-analysis';
+export * from './prepare-log';
