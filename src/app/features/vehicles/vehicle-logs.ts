@@ -5,7 +5,7 @@ import { MatTableModule } from '@angular/material/table';
 import type { LogResource } from '@shared/contracts/logs';
 import { durationText, isLogPending, logStatusText } from './vehicle-detail-text';
 
-/** A vehicle's logs: file, kind, parse state with progress, samples, duration and date. */
+/** A vehicle's logs: file, kind, the revision the ECU ran, parse state with progress, samples, duration and date. */
 @Component({
   selector: 'app-vehicle-logs',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -22,6 +22,10 @@ import { durationText, isLogPending, logStatusText } from './vehicle-detail-text
       <ng-container matColumnDef="kind">
         <th mat-header-cell *matHeaderCellDef scope="col">Kind</th>
         <td mat-cell *matCellDef="let log">{{ log.kind === 'dyno' ? 'Dyno' : 'Road' }}</td>
+      </ng-container>
+      <ng-container matColumnDef="ecuRevision">
+        <th mat-header-cell *matHeaderCellDef scope="col">ECU ran</th>
+        <td mat-cell *matCellDef="let log">{{ ecuRevisionText(log) }}</td>
       </ng-container>
       <ng-container matColumnDef="status">
         <th mat-header-cell *matHeaderCellDef scope="col">Status</th>
@@ -66,9 +70,19 @@ import { durationText, isLogPending, logStatusText } from './vehicle-detail-text
 export class VehicleLogs {
   /** The logs, newest first. */
   readonly logs = input.required<LogResource[]>();
+  /** Short labels of the vehicle's revisions by id ("Main VE r3"), for the revision a log ran. */
+  readonly revisionLabels = input<Readonly<Record<string, string>>>({});
 
   /** Column order. */
-  protected readonly columns = ['fileName', 'kind', 'status', 'samples', 'duration', 'createdAt'];
+  protected readonly columns = [
+    'fileName',
+    'kind',
+    'ecuRevision',
+    'status',
+    'samples',
+    'duration',
+    'createdAt',
+  ];
 
   /** The chip text. */
   protected readonly statusText = logStatusText;
@@ -76,6 +90,12 @@ export class VehicleLogs {
   protected readonly isPending = isLogPending;
   /** A readable duration. */
   protected readonly duration = durationText;
+
+  /** The revision the ECU ran when the log was recorded, or why it is not shown. */
+  protected ecuRevisionText(log: LogResource): string {
+    if (!log.ecuRevisionId) return 'Not given';
+    return this.revisionLabels()[log.ecuRevisionId] ?? 'A revision no longer listed';
+  }
 
   /** Keeps rows in place across reloads. */
   protected readonly trackById = (_index: number, log: LogResource): string => log.id;

@@ -87,6 +87,18 @@ export class VehiclePage {
     defaultValue: {} as Readonly<Record<string, RevisionSummary[]>>,
   });
 
+  /** "Table name r3" for every revision of the vehicle's tables, by revision id. */
+  protected readonly revisionLabels = computed(() => {
+    const labels: Record<string, string> = {};
+    const byTable: Readonly<Record<string, RevisionSummary[]>> = this.revisions.value();
+    for (const table of this.tables.value()) {
+      for (const revision of byTable[table.id] ?? []) {
+        labels[revision.id] = `${table.name} r${revision.number}`;
+      }
+    }
+    return labels;
+  });
+
   /** Whether the vehicle does not exist in this shop. */
   protected readonly isMissing = computed(() => isHttpStatus(this.vehicle.error(), 404));
 
