@@ -1,7 +1,9 @@
 import {
   EMPTY_HISTORY,
   HISTORY_LIMIT,
+  applyBatch,
   applyEdit,
+  historyActionLabels,
   historyKeyAction,
   redoEdit,
   undoEdit,
@@ -20,7 +22,9 @@ describe('edit history', () => {
       [30, 4],
     ]);
     expect(GRID[1][0]).toBe(3);
-    expect(step.history.past).toEqual([{ row: 1, col: 0, before: 3, after: 30 }]);
+    expect(step.history.past).toEqual([
+      { label: 'Set cell to 30', cells: [{ row: 1, col: 0, before: 3, after: 30 }] },
+    ]);
   });
 
   it('When an edit is undone and redone, then the values go back and forth', () => {
@@ -58,6 +62,48 @@ describe('edit history', () => {
 
   it('When a cell off the table is edited, then it throws naming the cell', () => {
     expect(() => applyEdit(GRID, EMPTY_HISTORY, 5, 0, 1)).toThrow('cell [5, 0] is off the table');
+  });
+
+  it('When a batch is applied, then one undo takes all its cells back and one redo puts them again', () => {
+    const first = applyEdit(GRID, EMPTY_HISTORY, 0, 0, 9);
+    const batch = applyBatch(first.values, first.history, 'Scale +5 %', [
+      { row: 0, col: 1, value: 2.1 },
+      { row: 1, col: 0, value: 3 }, // unchanged: left out of the batch
+      { row: 1, col: 1, value: 4.2 },
+    ]);
+    expect(batch.values).toEqual([
+      [9, 2.1],
+      [3, 4.2],
+    ]);
+    expect(historyActionLabels(batch.history)).toEqual({
+      undo: 'Undo Scale +5 % (2 cells)',
+      redo: 'Redo (nothing to redo)',
+    });
+
+    const undone = undoEdit(batch.values, batch.history);
+    expect(undone.values).toEqual(first.values);
+    expect(historyActionLabels(undone.history)).toEqual({
+      undo: 'Undo Set cell to 9 (1 cell)',
+      redo: 'Redo Scale +5 % (2 cells)',
+    });
+    expect(redoEdit(undone.values, undone.history).values).toEqual(batch.values);
+    expect(GRID).toEqual([
+      [1, 2],
+      [3, 4],
+    ]);
+  });
+
+  it('When a batch changes nothing, then nothing is recorded', () => {
+    const step = applyBatch(GRID, EMPTY_HISTORY, 'Set to 1', [{ row: 0, col: 0, value: 1 }]);
+    expect(step.history).toBe(EMPTY_HISTORY);
+    expect(step.values).toBe(GRID);
+  });
+
+  it('When there is no history, then the buttons say there is nothing to do', () => {
+    expect(historyActionLabels(EMPTY_HISTORY)).toEqual({
+      undo: 'Undo (nothing to undo)',
+      redo: 'Redo (nothing to redo)',
+    });
   });
 });
 

@@ -10,18 +10,39 @@ export interface CellEdit {
   readonly after: number;
 }
 
-/** Undo and redo stacks; the newest edit is last in each. */
+/** A new value for one cell, before it is recorded. */
+export interface CellChange {
+  /** Row (MAP breakpoint index). */
+  readonly row: number;
+  /** Column (RPM breakpoint index). */
+  readonly col: number;
+  /** The new value. */
+  readonly value: number;
+}
+
+/**
+ * What one undo or redo takes back or puts again: a typed value (a batch of one), a paste or a
+ * cell operation on a selection.
+ */
+export interface EditBatch {
+  /** What was done, for the undo/redo buttons ("Scale +5 %"). */
+  readonly label: string;
+  /** The cells it changed. */
+  readonly cells: readonly CellEdit[];
+}
+
+/** Undo and redo stacks of batches; the newest is last in each. */
 export interface EditHistory {
-  /** Edits that can be undone, oldest first. */
-  readonly past: readonly CellEdit[];
-  /** Edits undone that can be redone, the next to redo last. */
-  readonly future: readonly CellEdit[];
+  /** Batches that can be undone, oldest first. */
+  readonly past: readonly EditBatch[];
+  /** Batches undone that can be redone, the next to redo last. */
+  readonly future: readonly EditBatch[];
 }
 
 /** A history with nothing to undo or redo. */
 export const EMPTY_HISTORY: EditHistory = { past: [], future: [] };
 
-/** How many edits are kept for undo; older ones fall off. */
+/** How many batches are kept for undo; older ones fall off. */
 export const HISTORY_LIMIT = 200;
 
 /** A grid and its history after an operation. */
@@ -32,17 +53,52 @@ export interface HistoryStep {
   readonly history: EditHistory;
 }
 
-/** `values` with one cell set (a new outer array and a new row; other rows shared). */
+/** `values` with the given cells set (new outer array, new rows where a cell changed). */
+export function withCells(
+  values: readonly (readonly number[])[],
+  changes: readonly CellChange[],
+): number[][] {
+  const out = values.map((row) => [...row]);
+  for (const { row, col, value } of changes) out[row][col] = value;
+  return out;
+}
+
+/** `values` with one cell set. */
 export function withCell(
   values: readonly (readonly number[])[],
   row: number,
   col: number,
   value: number,
 ): number[][] {
-  return values.map((r, i) => (i === row ? r.map((v, j) => (j === col ? value : v)) : [...r]));
+  return withCells(values, [{ row, col, value }]);
 }
 
-/** Applies an edit and records it; a new edit clears what could be redone. No-ops are skipped. */
+/**
+ * Applies `changes` as one undoable batch called `label`; a new batch clears what could be
+ * redone. Cells whose value does not change are left out; when none changes, nothing is recorded.
+ */
+export function applyBatch(
+  values: readonly (readonly number[])[],
+  history: EditHistory,
+  label: string,
+  changes: readonly CellChange[],
+): HistoryStep {
+  const cells: CellEdit[] = [];
+  for (const { row, col, value } of changes) {
+    const before = values[row]?.[col];
+    if (before === undefined) throw new Error(`applyBatch: cell [${row}, ${col}] is off the table`);
+    if (before !== value) cells.push({ row, col, before, after: value });
+  }
+  if (cells.length === 0) return { values, history };
+  const past = [...history.past, { label, cells }].slice(-HISTORY_LIMIT);
+  const next = withCells(
+    values,
+    cells.map(({ row, col, after }) => ({ row, col, value: after })),
+  );
+  return { values: next, history: { past, future: [] } };
+}
+
+/** Applies one typed value as a batch of one, labelled with the value. */
 export function applyEdit(
   values: readonly (readonly number[])[],
   history: EditHistory,
@@ -50,36 +106,54 @@ export function applyEdit(
   col: number,
   after: number,
 ): HistoryStep {
-  const before = values[row]?.[col];
-  if (before === undefined) throw new Error(`applyEdit: cell [${row}, ${col}] is off the table`);
-  if (before === after) return { values, history };
-  const past = [...history.past, { row, col, before, after }].slice(-HISTORY_LIMIT);
-  return { values: withCell(values, row, col, after), history: { past, future: [] } };
+  return applyBatch(values, history, `Set cell to ${after}`, [{ row, col, value: after }]);
 }
 
-/** Undoes the newest edit; unchanged when there is nothing to undo. */
+/** Undoes the newest batch as a whole; unchanged when there is nothing to undo. */
 export function undoEdit(
   values: readonly (readonly number[])[],
   history: EditHistory,
 ): HistoryStep {
-  const edit = history.past.at(-1);
-  if (!edit) return { values, history };
+  const batch = history.past.at(-1);
+  if (!batch) return { values, history };
   return {
-    values: withCell(values, edit.row, edit.col, edit.before),
-    history: { past: history.past.slice(0, -1), future: [...history.future, edit] },
+    values: withCells(
+      values,
+      batch.cells.map(({ row, col, before }) => ({ row, col, value: before })),
+    ),
+    history: { past: history.past.slice(0, -1), future: [...history.future, batch] },
   };
 }
 
-/** Redoes the edit undone last; unchanged when there is nothing to redo. */
+/** Redoes the batch undone last as a whole; unchanged when there is nothing to redo. */
 export function redoEdit(
   values: readonly (readonly number[])[],
   history: EditHistory,
 ): HistoryStep {
-  const edit = history.future.at(-1);
-  if (!edit) return { values, history };
+  const batch = history.future.at(-1);
+  if (!batch) return { values, history };
   return {
-    values: withCell(values, edit.row, edit.col, edit.after),
-    history: { past: [...history.past, edit], future: history.future.slice(0, -1) },
+    values: withCells(
+      values,
+      batch.cells.map(({ row, col, after }) => ({ row, col, value: after })),
+    ),
+    history: { past: [...history.past, batch], future: history.future.slice(0, -1) },
+  };
+}
+
+/** "Scale +5 % (12 cells)": a batch's label with how many cells it touches. */
+export function batchLabel(batch: EditBatch): string {
+  const n = batch.cells.length;
+  return `${batch.label} (${n} ${n === 1 ? 'cell' : 'cells'})`;
+}
+
+/** What the undo and redo buttons say: "Undo Scale +5 % (12 cells)", or the bare action. */
+export function historyActionLabels(history: EditHistory): { undo: string; redo: string } {
+  const undo = history.past.at(-1);
+  const redo = history.future.at(-1);
+  return {
+    undo: undo ? `Undo ${batchLabel(undo)}` : 'Undo (nothing to undo)',
+    redo: redo ? `Redo ${batchLabel(redo)}` : 'Redo (nothing to redo)',
   };
 }
 

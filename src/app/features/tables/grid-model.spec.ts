@@ -1,4 +1,11 @@
-import { breakpointLabel, cellClasses, cellColours, gridRows } from './grid-model';
+import {
+  breakpointLabel,
+  cellClasses,
+  cellColours,
+  cellName,
+  gridColumns,
+  gridRows,
+} from './grid-model';
 import type { CellView } from './overlays';
 
 const VIEW: CellView = {
@@ -26,6 +33,42 @@ describe('grid model', () => {
     [{ isLeanFlag: true, isEdited: true }, ['cs-lean-flag', 'cs-edited']],
   ])('When the cell is %j, then its classes are %j', (flags, classes) => {
     expect(cellClasses({ ...VIEW, ...flags })).toEqual(classes);
+  });
+
+  it.each([
+    [0, 0, ['cs-selected', 'cs-sel-top', 'cs-sel-left']],
+    [1, 2, ['cs-selected', 'cs-sel-bottom', 'cs-sel-right']],
+    [0, 1, ['cs-selected', 'cs-sel-top']],
+    [2, 0, []],
+  ])(
+    'When cell [%d, %d] is judged against a 2 × 3 selection, then its classes are %j',
+    (row, col, classes) => {
+      const selection = { r0: 0, r1: 1, c0: 0, c1: 2 };
+      expect(cellClasses(VIEW, row, col, { selection, isLocked: false })).toEqual(classes);
+    },
+  );
+
+  it('When a cell is locked, then it carries the lock class beside its other marks', () => {
+    expect(
+      cellClasses({ ...VIEW, isEdited: true }, 0, 0, { selection: null, isLocked: true }),
+    ).toEqual(['cs-edited', 'cs-locked']);
+  });
+
+  it('When columns are built, then the MAP column is pinned and each RPM column names its breakpoint', () => {
+    const columns = gridColumns([1000, 2500.5], {
+      isEditable: () => true,
+      decor: () => ({ selection: null, isLocked: false }),
+      edit: () => undefined,
+    });
+    expect(columns.map((c) => [c.colId, c.headerName, c.pinned ?? null])).toEqual([
+      ['map', 'kPa \\ rpm', 'left'],
+      ['c0', '1000', null],
+      ['c1', '2500.5', null],
+    ]);
+  });
+
+  it('When a cell is named for a message, then its breakpoints say which', () => {
+    expect(cellName([1000, 2000], [30, 101.3], 1, 0)).toBe('cell at 1000 rpm, 101.3 kPa');
   });
 
   it.each([

@@ -1,4 +1,14 @@
+import type { ColDef, ValueSetterParams } from 'ag-grid-community';
+import { type CellBounds, isInBounds, selectionEdges } from './cell-range';
 import type { CellView } from './overlays';
+
+/** What marks a cell beyond its overlay view: the selection and its lock. */
+export interface CellDecor {
+  /** The selection, if any. */
+  readonly selection: CellBounds | null;
+  /** Whether the cell is locked. */
+  readonly isLocked: boolean;
+}
 
 /** One grid row: a MAP breakpoint and the views of its cells, one per RPM breakpoint. */
 export interface GridRow {
@@ -20,12 +30,28 @@ export function gridRows(
   return mapAxisKpa.map((mapKpa, row) => ({ id: `r${row}`, row, mapKpa, cells: cells[row] ?? [] }));
 }
 
-/** CSS classes of a cell: the lean-under-load outline and the unsaved-edit mark. */
-export function cellClasses(view: CellView | undefined): string[] {
+/**
+ * CSS classes of a cell: the lean-under-load outline, the unsaved-edit mark, the lock, and for a
+ * selected cell `cs-selected` plus one class per outer edge of the selection it sits on (so the
+ * whole range gets one outline, not a box per cell).
+ */
+export function cellClasses(
+  view: CellView | undefined,
+  row = -1,
+  col = -1,
+  decor: CellDecor = { selection: null, isLocked: false },
+): string[] {
   if (!view) return [];
   const classes: string[] = [];
   if (view.isLeanFlag) classes.push('cs-lean-flag');
   if (view.isEdited) classes.push('cs-edited');
+  if (decor.isLocked) classes.push('cs-locked');
+  if (decor.selection) {
+    if (isInBounds(decor.selection, row, col)) classes.push('cs-selected');
+    const edges = selectionEdges(decor.selection, row, col);
+    for (const edge of ['top', 'bottom', 'left', 'right'] as const)
+      if (edges[edge]) classes.push(`cs-sel-${edge}`);
+  }
   return classes;
 }
 
@@ -38,4 +64,80 @@ export function cellColours(view: CellView | undefined): Record<string, string> 
 /** A breakpoint for a header: whole numbers plain, others with one decimal. */
 export function breakpointLabel(value: number): string {
   return Number.isInteger(value) ? String(value) : value.toFixed(1);
+}
+
+/** A cell named by its breakpoints for messages: "cell at 3000 rpm, 100 kPa". */
+export function cellName(
+  rpmAxis: readonly number[],
+  mapAxisKpa: readonly number[],
+  row: number,
+  col: number,
+): string {
+  const rpm = breakpointLabel(rpmAxis[col] ?? col + 1);
+  const map = breakpointLabel(mapAxisKpa[row] ?? row + 1);
+  return `cell at ${rpm} rpm, ${map} kPa`;
+}
+
+/** A value typed into a cell, before it is checked. */
+export interface CellEditRequest {
+  /** Row (MAP breakpoint index). */
+  readonly row: number;
+  /** Column (RPM breakpoint index). */
+  readonly col: number;
+  /** What the editor gave. */
+  readonly raw: unknown;
+}
+
+/** What the value columns ask of the grid component. */
+export interface ColumnHooks {
+  /** Whether cells can be edited now. */
+  readonly isEditable: () => boolean;
+  /** The selection and lock marks of a cell now. */
+  readonly decor: (row: number, col: number) => CellDecor;
+  /** Reports a typed value (the store decides; accepted values come back as new views). */
+  readonly edit: (request: CellEditRequest) => void;
+}
+
+/** The grid's columns: the pinned MAP column, then one column per RPM breakpoint. */
+export function gridColumns(rpmAxis: readonly number[], hooks: ColumnHooks): ColDef<GridRow>[] {
+  const reportEdit = (p: ValueSetterParams<GridRow>, col: number): boolean => {
+    if (p.data) hooks.edit({ row: p.data.row, col, raw: p.newValue });
+    // Never taken here: the store checks it, and accepted values come back through the rows.
+    return false;
+  };
+  return [
+    {
+      colId: 'map',
+      headerName: 'kPa \\ rpm',
+      pinned: 'left',
+      width: 72,
+      editable: false,
+      sortable: false,
+      resizable: false,
+      valueGetter: (p) => p.data?.mapKpa,
+      valueFormatter: (p) => breakpointLabel(Number(p.value)),
+      cellClass: 'cs-axis-cell',
+    },
+    ...rpmAxis.map((rpm, col): ColDef<GridRow> => ({
+      colId: `c${col}`,
+      headerName: breakpointLabel(rpm),
+      minWidth: 56,
+      flex: 1,
+      sortable: false,
+      resizable: false,
+      editable: () => hooks.isEditable(),
+      cellEditor: 'agTextCellEditor',
+      valueGetter: (p) => p.data?.cells[col]?.value ?? null,
+      valueFormatter: (p) => p.data?.cells[col]?.text ?? '',
+      valueSetter: (p) => reportEdit(p, col),
+      cellStyle: (p) => cellColours(p.data?.cells[col]),
+      cellClass: (p) => {
+        const row = p.data?.row ?? -1;
+        return [
+          'cs-value-cell',
+          ...cellClasses(p.data?.cells[col], row, col, hooks.decor(row, col)),
+        ];
+      },
+    })),
+  ];
 }

@@ -31,8 +31,14 @@ const ANALYSIS: AnalysisResource = {
   baseRevisionId: 'r1',
   logIds: ['l1'],
   cells: [
-    [cell({ weight: 12, lambdaErrorPct: 4.24, changePct: 4.2 }), cell({})],
-    [cell({ weight: 3, lambdaErrorPct: -3.06, changePct: -3.1 }), cell({ weight: 40 })],
+    [
+      cell({ weight: 12, samples: 30, spread: 0.0213, lambdaErrorPct: 4.24, changePct: 4.2 }),
+      cell({}),
+    ],
+    [
+      cell({ weight: 3, samples: 7, spread: 0.05, lambdaErrorPct: -3.06, changePct: -3.1 }),
+      cell({ weight: 40, samples: 120, spread: null }),
+    ],
   ],
   proposal: [
     [52.1, null],
@@ -53,8 +59,8 @@ const ANALYSIS: AnalysisResource = {
   createdAt: '2026-01-01T00:00:00Z',
 };
 
-function view(kind: OverlayKind, values = VALUES) {
-  return overlayView({ kind, values, baseValues: VALUES, analysis: ANALYSIS });
+function view(kind: OverlayKind, values = VALUES, preview?: number[][] | null) {
+  return overlayView({ kind, values, baseValues: VALUES, analysis: ANALYSIS, preview });
 }
 
 describe('signedFigure', () => {
@@ -74,6 +80,8 @@ describe('overlayView', () => {
   it.each([
     ['ve', ['50.0', '60.0', '70.0', '80.0']],
     ['coverage', ['12.0', '–', '3.0', '40.0']],
+    ['samples', ['30', '–', '7', '120']],
+    ['spread', ['2.1', '–', '5.0', '–']],
     ['lambdaError', ['▲ +4.2', '–', '▼ −3.1', '–']],
     ['proposal', ['52.1', '–', '67.8', '80.0']],
     ['change', ['▲ +4.2', '–', '▼ −3.1', '–']],
@@ -133,8 +141,32 @@ describe('overlayView', () => {
     ['ve', '50.0 VE %', '80.0 VE %'],
     ['proposal', '50.0 VE %', '80.0 VE %'],
     ['coverage', '0 weight', '40 weight'],
+    ['samples', '0 samples', '120 samples'],
+    ['spread', '0.0 % spread', '5.0 % spread'],
     ['lambdaError', '▼ −10 % richer', '▲ +10 % leaner'],
   ] as const)('When the overlay is %s, then the legend runs from %j to %j', (kind, low, high) => {
     expect(view(kind).legend).toMatchObject({ low, high });
+  });
+
+  it('When a preview is given, then proposal and change show it instead of the analysis', () => {
+    const preview = [
+      [55, 60],
+      [63, 80.8],
+    ];
+    expect(
+      view('proposal', VALUES, preview)
+        .cells.flat()
+        .map((c) => c.text),
+    ).toEqual(['55.0', '60.0', '63.0', '80.8']);
+    // Against the loaded revision: 55/50 → +10 %, 60/60 → 0, 63/70 → −10 %, 80.8/80 → +1 %.
+    expect(
+      view('change', VALUES, preview)
+        .cells.flat()
+        .map((c) => c.text),
+    ).toEqual(['▲ +10.0', '0.0', '▼ −10.0', '▲ +1.0']);
+  });
+
+  it('When the preview is null, then the analysis’s own proposal is shown', () => {
+    expect(view('proposal', VALUES, null).cells[0][1].text).toBe('–');
   });
 });

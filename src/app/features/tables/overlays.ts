@@ -9,7 +9,8 @@ import {
 } from '../../shared/ui/colour-scale';
 
 /** What the grid's cells show. */
-export type OverlayKind = 've' | 'coverage' | 'lambdaError' | 'proposal' | 'change';
+export type OverlayKind =
+  've' | 'coverage' | 'samples' | 'spread' | 'lambdaError' | 'proposal' | 'change';
 
 /** One choice of the overlay switch. */
 export interface OverlayOption {
@@ -25,6 +26,8 @@ export interface OverlayOption {
 export const OVERLAYS: readonly OverlayOption[] = [
   { kind: 've', label: 'VE', needsAnalysis: false },
   { kind: 'coverage', label: 'Coverage', needsAnalysis: true },
+  { kind: 'samples', label: 'Samples', needsAnalysis: true },
+  { kind: 'spread', label: 'Spread', needsAnalysis: true },
   { kind: 'lambdaError', label: 'Lambda error %', needsAnalysis: true },
   { kind: 'proposal', label: 'Proposal', needsAnalysis: true },
   { kind: 'change', label: 'Change vs base %', needsAnalysis: true },
@@ -73,6 +76,11 @@ export interface OverlayInput {
   readonly baseValues: readonly (readonly number[])[];
   /** The analysis, if one was run. */
   readonly analysis: AnalysisResource | null;
+  /**
+   * A proposal computed elsewhere (a live preview of other settings), `[row][col]`. When given,
+   * the proposal and change overlays show it instead of the analysis's own proposal.
+   */
+  readonly preview?: readonly (readonly number[])[] | null;
 }
 
 const MINUS = '\u2212';
@@ -94,13 +102,35 @@ function cellNumber(input: OverlayInput, row: number, col: number): number | nul
       return input.values[row][col];
     case 'coverage':
       return cell && cell.weight > 0 ? cell.weight : null;
+    case 'samples':
+      return cell && cell.samples > 0 ? cell.samples : null;
+    case 'spread':
+      // The spread of the correction ratio, shown in percent like the other errors.
+      return cell?.spread === null || cell?.spread === undefined ? null : cell.spread * 100;
     case 'lambdaError':
       return cell?.lambdaErrorPct ?? null;
     case 'proposal':
-      return input.analysis?.proposal[row]?.[col] ?? null;
+      return input.preview
+        ? (input.preview[row]?.[col] ?? null)
+        : (input.analysis?.proposal[row]?.[col] ?? null);
     case 'change':
-      return cell?.changePct ?? null;
+      return input.preview
+        ? previewChange(input, input.preview, row, col)
+        : (cell?.changePct ?? null);
   }
+}
+
+/** Change of a preview against the loaded revision, in percent (as the analysis reports it). */
+function previewChange(
+  input: OverlayInput,
+  preview: readonly (readonly number[])[],
+  row: number,
+  col: number,
+): number | null {
+  const proposed = preview[row]?.[col];
+  const base = input.baseValues[row]?.[col];
+  if (proposed === undefined || base === undefined || base === 0) return null;
+  return (proposed / base - 1) * 100;
 }
 
 /** The lowest and highest finite numbers of a grid (0–1 when there are none). */
@@ -118,7 +148,9 @@ function extent(grid: readonly (readonly (number | null)[])[]): [number, number]
 
 /** The colour range of a sequential overlay: VE and proposal share one, so colours compare. */
 function sequentialRange(input: OverlayInput, numbers: (number | null)[][]): [number, number] {
-  if (input.kind === 'coverage') return [0, extent(numbers)[1]];
+  if (input.kind === 'coverage' || input.kind === 'samples' || input.kind === 'spread') {
+    return [0, extent(numbers)[1]];
+  }
   const [lo, hi] = extent(input.values);
   if (input.kind !== 'proposal') return [lo, hi];
   const [plo, phi] = extent(numbers);
@@ -141,6 +173,10 @@ function paint(kind: OverlayKind, value: number, range: [number, number]) {
         text: value.toFixed(value >= 100 ? 0 : 1),
         background: sequentialColour(value, ...range),
       };
+    case 'samples':
+      return { text: value.toFixed(0), background: sequentialColour(value, ...range) };
+    case 'spread':
+      return { text: value.toFixed(1), background: sequentialColour(value, ...range) };
     default:
       return { text: value.toFixed(1), background: sequentialColour(value, ...range) };
   }
@@ -181,6 +217,38 @@ export function overlayView(input: OverlayInput): OverlayView {
   return { cells, legend: overlayLegend(input.kind, range) };
 }
 
+/** Unit, decimals of the end labels and reading note of each sequential overlay. */
+const SEQUENTIAL_LEGENDS: Record<
+  Exclude<OverlayKind, 'lambdaError' | 'change'>,
+  { unit: string; digits: number; note: string }
+> = {
+  ve: {
+    unit: 'VE %',
+    digits: 1,
+    note: 'VE in percent. Type a value to edit a cell; drag or shift+click to select cells; Ctrl+Z undoes, Ctrl+Y redoes.',
+  },
+  coverage: {
+    unit: 'weight',
+    digits: 0,
+    note: 'How much logged data each cell received (bilinear weight); – means none.',
+  },
+  samples: {
+    unit: 'samples',
+    digits: 0,
+    note: 'How many kept samples touched each cell; – means none.',
+  },
+  spread: {
+    unit: '% spread',
+    digits: 1,
+    note: 'How much the samples of a cell disagree (weighted spread of the correction, %): high spread asks for steadier data.',
+  },
+  proposal: {
+    unit: 'VE %',
+    digits: 1,
+    note: 'Proposed VE at the analysis’s step fraction, on the same colours as the VE view.',
+  },
+};
+
 /** The legend of an overlay, sequential ones labelled with the ends of their colour range. */
 function overlayLegend(kind: OverlayKind, [lo, hi]: [number, number]): LegendView {
   const limit = `${DIVERGING_LIMIT_PCT}`;
@@ -202,18 +270,12 @@ function overlayLegend(kind: OverlayKind, [lo, hi]: [number, number]): LegendVie
       note: 'Proposed change of VE: ▲ + more fuel (blue), ▼ − less fuel (orange), the colours of rich and lean.',
     };
   }
-  const isCoverage = kind === 'coverage';
-  const unit = isCoverage ? 'weight' : 'VE %';
-  const notes: Record<'ve' | 'coverage' | 'proposal', string> = {
-    ve: 'VE in percent. Type a value to edit a cell; Ctrl+Z undoes, Ctrl+Y redoes.',
-    coverage: 'How much logged data each cell received (bilinear weight); – means none.',
-    proposal: 'Proposed VE at the analysis’s step fraction, on the same colours as the VE view.',
-  };
+  const scale = SEQUENTIAL_LEGENDS[kind];
   return {
     gradient: gradientCss(SEQUENTIAL_STOPS),
-    low: `${lo.toFixed(isCoverage ? 0 : 1)} ${unit}`,
+    low: `${lo.toFixed(scale.digits)} ${scale.unit}`,
     mid: '',
-    high: `${hi.toFixed(isCoverage ? 0 : 1)} ${unit}`,
-    note: notes[kind],
+    high: `${hi.toFixed(scale.digits)} ${scale.unit}`,
+    note: scale.note,
   };
 }

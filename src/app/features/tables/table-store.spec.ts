@@ -2,7 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { TableStore } from './table-store';
+import { TableStore, locksStorageKey } from './table-store';
 
 const TABLE = {
   id: 't1',
@@ -36,6 +36,7 @@ describe('TableStore', () => {
   let snack: jest.Mock;
 
   beforeEach(() => {
+    localStorage.clear();
     snack = jest.fn();
     TestBed.configureTestingModule({
       providers: [
@@ -127,5 +128,83 @@ describe('TableStore', () => {
     http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
     expect(store.revision()?.number).toBe(2);
     expect(store.canUndo()).toBe(false);
+  });
+
+  it('When a range is selected, then its cells are listed row by row', () => {
+    expect(store.selectedCells()).toEqual([]);
+    store.select({ anchor: { row: 1, col: 1 }, focus: { row: 0, col: 0 } });
+    expect(store.selectedCells()).toEqual([
+      [0, 0],
+      [0, 1],
+      [1, 0],
+      [1, 1],
+    ]);
+  });
+
+  it('When nothing is selected, then paste, operations and locks ask for a selection', () => {
+    expect(store.paste('50')).toBe('Select the cell to paste at first.');
+    expect(store.operate({ kind: 'smooth' })).toBe('Select the cells to change first.');
+    expect(store.setLocked(true)).toBe('Select the cells to lock first.');
+  });
+
+  it('When a block is pasted, then it is one undo step and a bad block changes nothing', () => {
+    store.select({ anchor: { row: 0, col: 0 }, focus: { row: 0, col: 0 } });
+    expect(store.paste('41\t51\r\n81\t91\r\n')).toBeNull();
+    expect(store.values()).toEqual([
+      [41, 51],
+      [81, 91],
+    ]);
+    expect(store.historyLabels().undo).toBe('Undo Paste 2 × 2 values (4 cells)');
+    store.undo();
+    expect(store.values()).toEqual(REVISION.values);
+
+    expect(store.paste('41\t51\t61')).toContain('runs 1 column off the table');
+    expect(store.paste('41\tx')).toBe(
+      'Row 1, column 2 of the pasted text, “x”, is not a number. Nothing was pasted.',
+    );
+    expect(store.values()).toEqual(REVISION.values);
+  });
+
+  it('When an operation runs on the selection, then it is one undo step with its label', () => {
+    store.select({ anchor: { row: 0, col: 0 }, focus: { row: 1, col: 1 } });
+    expect(store.operate({ kind: 'offset', points: 1.5 })).toBeNull();
+    expect(store.values()).toEqual([
+      [41.5, 51.5],
+      [81.5, 91.5],
+    ]);
+    expect(store.historyLabels().undo).toBe('Undo Offset +1.5 VE (4 cells)');
+    store.undo();
+    expect(store.values()).toEqual(REVISION.values);
+    expect(store.operate({ kind: 'scale', percent: 0 })).toBe('Scale +0 % changed no cell.');
+    expect(store.canUndo()).toBe(false);
+  });
+
+  it('When cells are locked, then edits and operations leave them and the locks survive a reload', () => {
+    store.select({ anchor: { row: 1, col: 1 }, focus: { row: 1, col: 1 } });
+    expect(store.setLocked(true)).toBe('Locked 1 cell: nothing changes them until unlocked.');
+    expect(store.lockedCells()).toEqual([[1, 1]]);
+    expect(localStorage.getItem(locksStorageKey('t1'))).toBe('[[1,1]]');
+    expect(store.edit(1, 1, '95')).toBe(
+      'The cell at 2000 rpm, 100 kPa is locked. Unlock it to edit.',
+    );
+
+    store.select({ anchor: { row: 0, col: 0 }, focus: { row: 1, col: 1 } });
+    expect(store.operate({ kind: 'set', value: 60 })).toBeNull();
+    expect(store.values()).toEqual([
+      [60, 60],
+      [60, 90],
+    ]);
+
+    store.load('t1');
+    http.expectOne('/api/tables/t1').flush(TABLE);
+    http.expectOne('/api/vehicles/v1').flush({ id: 'v1', label: 'Demo hatch' });
+    http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 1 });
+    http.expectOne('/api/revisions/r1').flush(REVISION);
+    http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
+    expect(store.lockedCells()).toEqual([[1, 1]]);
+    expect(store.selectedCells()).toHaveLength(4);
+
+    expect(store.setLocked(false)).toBe('Unlocked 4 cells.');
+    expect(store.lockedCells()).toEqual([]);
   });
 });

@@ -11,14 +11,37 @@ import { LogsApi } from '../../core/api/logs-api';
 import { TablesApi } from '../../core/api/tables-api';
 import { VehiclesApi } from '../../core/api/vehicles-api';
 import {
+  type CellSelection,
+  type CellSet,
+  boundsCells,
+  boundsSize,
+  cellKey,
+  cellSetList,
+  clampSelection,
+  parseCellSet,
+  withBounds,
+  selectionBounds,
+} from './cell-range';
+import { type CellOperation, applyCellOperation } from './cell-operations';
+import {
   EMPTY_HISTORY,
+  type CellChange,
   type EditHistory,
   type HistoryStep,
+  applyBatch,
   applyEdit,
+  historyActionLabels,
   redoEdit,
   undoEdit,
 } from './edit-history';
+import { cellName } from './grid-model';
+import { pasteText } from './table-clipboard';
 import { parseVeInput } from './ve-input';
+
+/** The localStorage key of a table's locked cells (kept per browser, see `setLocked`). */
+export function locksStorageKey(tableId: string): string {
+  return `cellsmith.locks.${tableId}`;
+}
 
 /** What the workspace is waiting for, if anything. */
 export type TableBusy = 'loading' | 'saving' | 'analysing' | 'applying' | null;
@@ -51,6 +74,8 @@ export class TableStore {
   private readonly editHistory = signal<EditHistory>(EMPTY_HISTORY);
   private readonly latestAnalysis = signal<AnalysisResource | null>(null);
   private readonly waitingFor = signal<TableBusy>('loading');
+  private readonly currentSelection = signal<CellSelection | null>(null);
+  private readonly lockSet = signal<CellSet>(new Set());
 
   /** The table (axes, name), null until loaded. */
   readonly table = computed(() => this.loaded()?.table ?? null);
@@ -74,6 +99,24 @@ export class TableStore {
   readonly canUndo = computed(() => this.editHistory().past.length > 0);
   /** Whether there is an undone edit to redo. */
   readonly canRedo = computed(() => this.editHistory().future.length > 0);
+  /** What undo and redo would take back or put again ("Undo Scale +5 % (12 cells)"). */
+  readonly historyLabels = computed(() => historyActionLabels(this.editHistory()));
+  /** The selected range, null when nothing is selected. */
+  readonly selection = this.currentSelection.asReadonly();
+  /** The selection normalised to rows r0..r1, columns c0..c1. */
+  readonly selectionBounds = computed(() => {
+    const selection = this.currentSelection();
+    return selection ? selectionBounds(selection) : null;
+  });
+  /** The selected cells as `[row, col]`, row by row (empty when nothing is selected). */
+  readonly selectedCells = computed((): [number, number][] => {
+    const bounds = this.selectionBounds();
+    return bounds ? boundsCells(bounds) : [];
+  });
+  /** The locked cells as keys (`cellKey`). */
+  readonly locked = this.lockSet.asReadonly();
+  /** The locked cells as `[row, col]`, row by row. */
+  readonly lockedCells = computed(() => cellSetList(this.lockSet()));
   /** Whether the values differ from the loaded revision. */
   readonly isDirty = computed(() => {
     const saved = this.revision()?.values ?? [];
@@ -95,11 +138,25 @@ export class TableStore {
       }),
     );
     this.run(request, 'The table could not be loaded.', (loaded) => {
+      const rows = loaded.table.mapAxisKpa.length;
+      const cols = loaded.table.rpmAxis.length;
+      const selection = this.currentSelection();
+      const isSameTable = this.loaded()?.table.id === loaded.table.id;
       this.loaded.set(loaded);
       this.editedValues.set(loaded.head.values);
       this.editHistory.set(EMPTY_HISTORY);
       this.latestAnalysis.set(null);
+      this.currentSelection.set(
+        isSameTable && selection ? clampSelection(selection, rows, cols) : null,
+      );
+      const stored = this.withStorage((st) => st.getItem(locksStorageKey(tableId)), null);
+      this.lockSet.set(parseCellSet(stored, rows, cols));
     });
+  }
+
+  /** Selects a range (null: nothing). */
+  select(selection: CellSelection | null): void {
+    this.currentSelection.set(selection);
   }
 
   /**
@@ -107,10 +164,64 @@ export class TableStore {
    * refused (the cell keeps its value).
    */
   edit(row: number, col: number, raw: unknown): string | null {
+    if (this.lockSet().has(cellKey(row, col))) {
+      const name = cellName(this.table()?.rpmAxis ?? [], this.table()?.mapAxisKpa ?? [], row, col);
+      return `The ${name} is locked. Unlock it to edit.`;
+    }
     const input = parseVeInput(raw);
     if (!input.ok) return input.message;
     this.step(applyEdit(this.editedValues(), this.editHistory(), row, col, input.value));
     return null;
+  }
+
+  /**
+   * Pastes tab-separated text at the selection as one undo step. Returns what to tell the user:
+   * the refusal (nothing pasted), how many locked cells were skipped, or null.
+   */
+  paste(text: string): string | null {
+    const bounds = this.selectionBounds();
+    if (!bounds) return 'Select the cell to paste at first.';
+    const target = { values: this.editedValues(), bounds, locked: this.lockSet() };
+    const outcome = pasteText(target, text);
+    if (!outcome.ok) return outcome.message;
+    this.commit(outcome.label, outcome.changes);
+    return outcome.note;
+  }
+
+  /** Runs an operation on the selection as one undo step; returns a refusal or null. */
+  operate(op: CellOperation): string | null {
+    const table = this.table();
+    const bounds = this.selectionBounds();
+    if (!table || !bounds) return 'Select the cells to change first.';
+    const { rpmAxis, mapAxisKpa } = table;
+    const values = this.editedValues();
+    const result = applyCellOperation(
+      { values, bounds, locked: this.lockSet(), rpmAxis, mapAxisKpa },
+      op,
+    );
+    if (!result.ok) return result.message;
+    if (result.changed.length === 0) return `${result.label} changed no cell.`;
+    this.commit(result.label, result.changed);
+    return null;
+  }
+
+  /**
+   * Locks or unlocks the selected cells. Locks belong to this browser (localStorage, per table),
+   * not to the revision: they guard editing here and are not part of the undo history.
+   */
+  setLocked(isLocked: boolean): string {
+    const table = this.table();
+    const bounds = this.selectionBounds();
+    if (!table || !bounds) return 'Select the cells to lock first.';
+    const next = withBounds(this.lockSet(), bounds, isLocked);
+    this.lockSet.set(next);
+    const json = JSON.stringify(cellSetList(next));
+    this.withStorage((st) => st.setItem(locksStorageKey(table.id), json), undefined);
+    const { rows, cols } = boundsSize(bounds);
+    const cells = rows * cols === 1 ? '1 cell' : `${rows * cols} cells`;
+    return isLocked
+      ? `Locked ${cells}: nothing changes them until unlocked.`
+      : `Unlocked ${cells}.`;
   }
 
   /** Undoes the newest edit. */
@@ -162,6 +273,20 @@ export class TableStore {
   private announceAndReload(revision: Revision, text: string): void {
     this.snackBar.open(text, 'OK', { duration: 6000 });
     this.load(revision.tableId);
+  }
+
+  private commit(label: string, changes: readonly CellChange[]): void {
+    this.step(applyBatch(this.editedValues(), this.editHistory(), label, changes));
+  }
+
+  /** Runs `use` on localStorage; with storage switched off or full, gives `fallback`. */
+  private withStorage<T>(use: (storage: Storage) => T, fallback: T): T {
+    try {
+      return use(localStorage);
+    } catch {
+      // Locks are a convenience of this browser: without storage they last for this visit only.
+      return fallback;
+    }
   }
 
   private step(next: HistoryStep): void {

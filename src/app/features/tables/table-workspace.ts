@@ -16,9 +16,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
 import { Session } from '../../core/auth/session';
 import { AnalysisPanel, type ApplyRequest } from './analysis-panel';
+import type { CellOperation } from './cell-operations';
+import { CellOpsBar } from './cell-ops-bar';
 import { ColourLegend } from './colour-legend';
 import { historyKeyAction } from './edit-history';
 import { LeanBanner } from './lean-banner';
@@ -35,6 +38,7 @@ import { TableStore } from './table-store';
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     AnalysisPanel,
+    CellOpsBar,
     ColourLegend,
     FormsModule,
     LeanBanner,
@@ -43,6 +47,7 @@ import { TableStore } from './table-store';
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
+    MatTooltipModule,
     RouterLink,
     TableGrid,
   ],
@@ -81,6 +86,15 @@ export class TableWorkspace {
       analysis: this.store.analysis(),
     }),
   );
+  /** Whether values can be changed now: a tuner, looking at the VE. */
+  protected readonly canChangeValues = computed(() => this.canEdit() && this.overlay() === 've');
+  /**
+   * Why the cell operations are unavailable beyond "nothing selected" (which the grid's own
+   * line says; a hint appearing on the first click would shift the grid under the pointer).
+   */
+  protected readonly opsHint = computed(() =>
+    this.overlay() === 've' ? '' : 'Switch to the VE view to change cells.',
+  );
   /** The name of the overlay shown, for the grid's accessible name. */
   protected readonly overlayLabel = computed(
     () => OVERLAYS.find((o) => o.kind === this.overlay())?.label ?? '',
@@ -96,8 +110,29 @@ export class TableWorkspace {
 
   /** Checks and applies a typed value; a refusal is told and the cell keeps its value. */
   protected onCellEdit(request: CellEditRequest): void {
-    const refusal = this.store.edit(request.row, request.col, request.raw);
-    if (refusal) this.snackBar.open(refusal, 'OK', { duration: 6000 });
+    this.tell(this.store.edit(request.row, request.col, request.raw));
+  }
+
+  /** Pastes into the selection, or says why not. */
+  protected onPaste(text: string): void {
+    if (!this.canChangeValues()) {
+      const reason = this.canEdit()
+        ? 'Switch to the VE view to paste values.'
+        : 'Only tuners can paste values.';
+      this.tell(reason);
+      return;
+    }
+    this.tell(this.store.paste(text));
+  }
+
+  /** Runs a cell operation on the selection; a refusal is told. */
+  protected onOperate(op: CellOperation): void {
+    this.tell(this.store.operate(op));
+  }
+
+  /** Locks or unlocks the selected cells. */
+  protected onLock(isLocked: boolean): void {
+    this.tell(this.store.setLocked(isLocked));
   }
 
   /** Ctrl+Z / Ctrl+Y outside text fields (a cell editor keeps its own text undo). */
@@ -111,15 +146,22 @@ export class TableWorkspace {
     else this.store.redo();
   }
 
+  private tell(message: string | null): void {
+    if (message) this.snackBar.open(message, 'OK', { duration: 6000 });
+  }
+
   /** Saves the grid as a new revision. */
   protected save(): void {
     this.store.save(this.saveMessage().trim());
     this.saveMessage.set('');
   }
 
-  /** Applies the analysis as a draft revision. */
+  /**
+   * Applies the analysis as a draft revision. A bridge to the panel's new request until the
+   * store takes its whole body (settings, locks, only-cells): step fraction and message for now.
+   */
   protected apply(request: ApplyRequest): void {
-    this.store.applyAnalysis(request.stepFraction, request.message);
+    this.store.applyAnalysis(request.body.stepFraction ?? 0.5, request.body.message ?? '');
   }
 }
 

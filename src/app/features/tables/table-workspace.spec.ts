@@ -1,0 +1,259 @@
+import type { HarnessLoader } from '@angular/cdk/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { NO_ERRORS_SCHEMA, signal } from '@angular/core';
+import { type ComponentFixture, TestBed } from '@angular/core/testing';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { MatMenuHarness } from '@angular/material/menu/testing';
+import { provideRouter } from '@angular/router';
+import { noAnimations } from '../../../testing/harness-helpers';
+import type { AnalysisCell, AnalysisResource } from '../../core/api/analyses-api';
+import { Session } from '../../core/auth/session';
+import { AnalysisPanel } from './analysis-panel';
+import { TableStore } from './table-store';
+import { TableWorkspace } from './table-workspace';
+
+// A 4 × 5 table: rows are MAP breakpoints, columns RPM breakpoints.
+const VALUES = [
+  [40, 42, 44, 46, 48],
+  [50, 52, 54, 56, 58],
+  [60, 62, 64, 66, 68],
+  [70, 72, 74, 76, 78],
+];
+const TABLE = {
+  id: 't1',
+  vehicleId: 'v1',
+  name: 'Main VE',
+  rpmAxis: [1000, 2000, 3000, 4000, 5000],
+  mapAxisKpa: [30, 60, 90, 120],
+  headRevisionId: 'r1',
+  createdAt: '2026-01-01T00:00:00Z',
+};
+const REVISION = {
+  id: 'r1',
+  tableId: 't1',
+  parentId: null,
+  number: 1,
+  status: 'draft',
+  message: 'Initial table',
+  authorId: 'u1',
+  authorName: 'Demo Tuner',
+  analysisId: null,
+  createdAt: '2026-01-01T00:00:00Z',
+  values: VALUES,
+};
+
+function analysisCell(lambdaErrorPct: number | null): AnalysisCell {
+  return {
+    samples: lambdaErrorPct === null ? 0 : 8,
+    weight: lambdaErrorPct === null ? 0 : 3.5,
+    ratio: null,
+    spread: lambdaErrorPct === null ? null : 0.021,
+    effectiveCount: 0,
+    lambdaErrorPct,
+    worstLeanPct: null,
+    lambdaMeasured: null,
+    lambdaCommanded: null,
+    proposal: null,
+    changePct: null,
+    status: lambdaErrorPct === null ? 'no_data' : 'trusted',
+  };
+}
+
+// Lean (+4.2 %) at the top-left cell, rich (−3.1 %) beside it, no data elsewhere.
+const ANALYSIS: AnalysisResource = {
+  id: 'a1',
+  tableId: 't1',
+  baseRevisionId: 'r1',
+  logIds: ['l1'],
+  cells: VALUES.map((row, r) =>
+    row.map((_, c) => analysisCell(r === 0 && c === 0 ? 4.24 : r === 0 && c === 1 ? -3.06 : null)),
+  ),
+  proposal: VALUES.map((row) => row.map(() => null)),
+  filterReport: { logs: [] },
+  leanFlags: [],
+  createdAt: '2026-01-01T00:00:00Z',
+};
+
+describe('TableWorkspace', () => {
+  let fixture: ComponentFixture<TableWorkspace>;
+  let loader: HarnessLoader;
+  let http: HttpTestingController;
+  let store: TableStore;
+
+  const host = () => fixture.nativeElement as HTMLElement;
+  const cellEl = (row: number, col: number) =>
+    host().querySelector<HTMLElement>(`.ag-row[row-index="${row}"] .ag-cell[col-id="c${col}"]`);
+  const cellText = (row: number, col: number) => cellEl(row, col)?.textContent?.trim() ?? '';
+
+  /** Lets the grid deliver its events (it batches them into a timeout) and the page update. */
+  async function settle(): Promise<void> {
+    await new Promise((resolve) => setTimeout(resolve));
+    fixture.detectChanges();
+    await fixture.whenStable();
+  }
+
+  /** Drags from one cell to another as a mouse would: press, move over the cells, release. */
+  async function drag(from: [number, number], to: [number, number]): Promise<void> {
+    const start = cellEl(...from);
+    const end = cellEl(...to);
+    if (!start || !end) throw new Error('drag: a cell is not rendered');
+    // The grid listens for pointerdown where the browser has it (jsdom does).
+    start.dispatchEvent(new MouseEvent('pointerdown', { bubbles: true, button: 0, buttons: 1 }));
+    end.dispatchEvent(
+      new MouseEvent('mouseover', { bubbles: true, buttons: 1, relatedTarget: start }),
+    );
+    document.dispatchEvent(new MouseEvent('mouseup', { bubbles: true }));
+    await settle();
+  }
+
+  beforeEach(async () => {
+    localStorage.clear();
+    TestBed.configureTestingModule({
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        noAnimations,
+        {
+          provide: Session,
+          useValue: { user: signal({ id: 'u1', name: 'Demo Tuner', roles: ['tuner'] }) },
+        },
+      ],
+    });
+    // The analysis panel has its own spec; here it is an inert element, so the grid is tested alone.
+    TestBed.overrideComponent(TableWorkspace, {
+      remove: { imports: [AnalysisPanel] },
+      add: { schemas: [NO_ERRORS_SCHEMA] },
+    });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(TableWorkspace);
+    fixture.componentRef.setInput('id', 't1');
+    loader = TestbedHarnessEnvironment.loader(fixture);
+    fixture.detectChanges();
+    http.expectOne('/api/tables/t1').flush(TABLE);
+    http.expectOne('/api/vehicles/v1').flush({ id: 'v1', label: 'Demo hatch' });
+    http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 1 });
+    http.expectOne('/api/revisions/r1').flush(REVISION);
+    http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
+    await settle();
+    store = fixture.debugElement.injector.get(TableStore);
+  });
+
+  afterEach(() => http.verify());
+
+  it('When the overlay switches to lambda error, then the legend and cells show signed errors', async () => {
+    expect(cellText(0, 0)).toBe('40.0');
+    expect(host().querySelector('app-colour-legend')?.textContent).toContain('VE %');
+
+    store.analyse(['l1']);
+    http.expectOne('/api/tables/t1/analyses').flush(ANALYSIS);
+    await settle();
+    const toggle = await loader.getHarness(MatButtonToggleHarness.with({ text: 'Lambda error %' }));
+    await toggle.check();
+    await settle();
+
+    const legend = host().querySelector('app-colour-legend')?.textContent ?? '';
+    expect(legend).toContain('▲ +10 % leaner');
+    expect(legend).toContain('▼ −10 % richer');
+    expect([cellText(0, 0), cellText(0, 1), cellText(0, 2)]).toEqual(['▲ +4.2', '▼ −3.1', '–']);
+
+    await (await loader.getHarness(MatButtonToggleHarness.with({ text: 'Spread' }))).check();
+    await settle();
+    expect(cellText(0, 0)).toBe('2.1');
+    expect(host().querySelector('app-colour-legend')?.textContent).toContain('% spread');
+  });
+
+  it('When cells are dragged over, then they are marked and the size is shown', async () => {
+    await drag([1, 1], [2, 3]);
+    expect(host().querySelector('[data-testid="selection-size"]')?.textContent?.trim()).toBe(
+      '2 × 3 cells selected',
+    );
+    expect(store.selectedCells()).toEqual([
+      [1, 1],
+      [1, 2],
+      [1, 3],
+      [2, 1],
+      [2, 2],
+      [2, 3],
+    ]);
+    expect(cellEl(1, 1)?.classList).toContain('cs-selected');
+    expect(cellEl(1, 1)?.classList).toContain('cs-sel-top');
+    expect(cellEl(0, 0)?.classList).not.toContain('cs-selected');
+  });
+
+  it('When a selection is scaled, then exactly those cells change, and undo and redo take one step', async () => {
+    await drag([1, 1], [2, 3]);
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[name="amount"]' }))
+    ).setValue('10');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Scale %' }))).click();
+    await settle();
+
+    const scaled = VALUES.map((row, r) =>
+      row.map((v, c) => (r >= 1 && r <= 2 && c >= 1 && c <= 3 ? Math.round(v * 110) / 100 : v)),
+    );
+    expect(store.values()).toEqual(scaled);
+    expect(cellText(1, 1)).toBe('57.2');
+
+    const undo = await loader.getHarness(
+      MatButtonHarness.with({ selector: '[aria-label^="Undo"]' }),
+    );
+    expect(await (await undo.host()).getAttribute('aria-label')).toBe('Undo Scale +10 % (6 cells)');
+    await undo.click();
+    await settle();
+    expect(store.values()).toEqual(VALUES);
+    expect(cellText(1, 1)).toBe('52.0');
+
+    const redo = await loader.getHarness(
+      MatButtonHarness.with({ selector: '[aria-label^="Redo"]' }),
+    );
+    expect(await (await redo.host()).getAttribute('aria-label')).toBe('Redo Scale +10 % (6 cells)');
+    await redo.click();
+    await settle();
+    expect(store.values()).toEqual(scaled);
+  });
+
+  it('When a cell is locked, then a blend and a paste over it leave it alone', async () => {
+    await drag([0, 2], [0, 2]);
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Lock$/ }))).click();
+    await settle();
+    expect(cellEl(0, 2)?.classList).toContain('cs-locked');
+    expect(store.lockedCells()).toEqual([[0, 2]]);
+    expect(JSON.parse(localStorage.getItem('cellsmith.locks.t1') ?? '[]')).toEqual([[0, 2]]);
+
+    await drag([0, 0], [0, 4]);
+    // Make the row uneven (the paste skips the locked cell), then blend it along the row.
+    expect(store.paste('41\t40\t40\t40\t49')).toBe('Pasted 4 cells; 1 locked cell was skipped.');
+    await settle();
+    expect(store.values()[0]).toEqual([41, 40, 44, 40, 49]);
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Blend across/ }))).click();
+    await (await loader.getHarness(MatMenuHarness)).clickItem({ text: /Along rows/ });
+    await settle();
+    // Straight in RPM from 41 (1000 rpm) to 49 (5000 rpm): 43 at 2000, 47 at 4000; 44 is locked.
+    expect(store.values()[0]).toEqual([41, 43, 44, 47, 49]);
+    expect(store.historyLabels().undo).toBe('Undo Blend along rows (2 cells)');
+    expect(store.edit(0, 2, '50')).toBe(
+      'The cell at 3000 rpm, 30 kPa is locked. Unlock it to edit.',
+    );
+  });
+
+  it('When text is pasted into a focused grid cell, then it lands from the selection as one step', async () => {
+    await drag([2, 1], [2, 1]);
+    cellEl(2, 1)?.focus();
+    const paste = new Event('paste', { bubbles: true, cancelable: true });
+    Object.defineProperty(paste, 'clipboardData', {
+      value: { getData: () => '61,5\t63\r\n71\t73\r\n' },
+    });
+    cellEl(2, 1)?.dispatchEvent(paste);
+    await settle();
+
+    expect(paste.defaultPrevented).toBe(true);
+    expect(store.values()[2]).toEqual([60, 61.5, 63, 66, 68]);
+    expect(store.values()[3]).toEqual([70, 71, 73, 76, 78]);
+    expect(store.historyLabels().undo).toBe('Undo Paste 2 × 2 values (4 cells)');
+  });
+});
