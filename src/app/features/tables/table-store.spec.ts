@@ -2,6 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
+import type { ApplyAnalysisRequest } from '@shared/contracts/analyses';
 import { TableStore, locksStorageKey } from './table-store';
 
 const TABLE = {
@@ -54,6 +55,9 @@ describe('TableStore', () => {
     http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 1 });
     http.expectOne('/api/revisions/r1').flush(REVISION);
     http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
+    http
+      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
+      .flush({ items: [], total: 0 });
   });
 
   afterEach(() => http.verify());
@@ -126,6 +130,9 @@ describe('TableStore', () => {
     http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 2 });
     http.expectOne('/api/revisions/r2').flush({ ...REVISION, id: 'r2', number: 2 });
     http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
+    http
+      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
+      .flush({ items: [], total: 0 });
     expect(store.revision()?.number).toBe(2);
     expect(store.canUndo()).toBe(false);
   });
@@ -201,10 +208,67 @@ describe('TableStore', () => {
     http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 1 });
     http.expectOne('/api/revisions/r1').flush(REVISION);
     http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
+    http
+      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
+      .flush({ items: [], total: 0 });
     expect(store.lockedCells()).toEqual([[1, 1]]);
     expect(store.selectedCells()).toHaveLength(4);
 
     expect(store.setLocked(false)).toBe('Unlocked 4 cells.');
     expect(store.lockedCells()).toEqual([]);
+  });
+
+  it('When an analysis runs, then its settings are sent and the list of analyses is read again', () => {
+    store.analyse({ logIds: ['l1'], settings: { stepFraction: 0.7 } });
+    const post = http.expectOne((r) => r.method === 'POST' && r.url === '/api/tables/t1/analyses');
+    expect(post.request.body).toEqual({
+      baseRevisionId: 'r1',
+      logIds: ['l1'],
+      settings: { stepFraction: 0.7 },
+    });
+    post.flush({ id: 'a1', baseRevisionId: 'r1', leanFlags: [] });
+    http
+      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
+      .flush({ items: [{ id: 'a1' }], total: 1 });
+    expect(store.analysis()?.id).toBe('a1');
+    expect(store.analyses().map((a) => a.id)).toEqual(['a1']);
+    expect(store.analysisBaseValues()).toEqual(REVISION.values);
+  });
+
+  it('When an earlier analysis of an older revision is opened, then that revision is its base', () => {
+    store.openAnalysis('a0');
+    http.expectOne('/api/analyses/a0').flush({ id: 'a0', baseRevisionId: 'r0', leanFlags: [] });
+    http.expectOne('/api/revisions/r0').flush({
+      ...REVISION,
+      id: 'r0',
+      values: [
+        [1, 2],
+        [3, 4],
+      ],
+    });
+    expect(store.analysis()?.id).toBe('a0');
+    expect(store.analysisBaseValues()).toEqual([
+      [1, 2],
+      [3, 4],
+    ]);
+  });
+
+  it('When an analysis is applied, then the panel’s options go to the server as they are', () => {
+    store.analyse({ logIds: ['l1'], settings: {} });
+    http
+      .expectOne((r) => r.method === 'POST' && r.url === '/api/tables/t1/analyses')
+      .flush({ id: 'a1', baseRevisionId: 'r1', leanFlags: [] });
+    http
+      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
+      .flush({ items: [], total: 0 });
+    const body: ApplyAnalysisRequest = {
+      stepFraction: 0.8,
+      smooth: 0,
+      onlyCells: [[1, 1]],
+      lockedCells: [[0, 0]],
+    };
+    store.applyAnalysis(body);
+    const apply = http.expectOne('/api/analyses/a1/apply');
+    expect(apply.request.body).toEqual(body);
   });
 });

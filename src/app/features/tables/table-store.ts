@@ -4,7 +4,8 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import type { LogResource } from '@shared/contracts/logs';
 import type { Revision, RevisionSummary, VeTableResource } from '@shared/contracts/tables';
 import type { Vehicle } from '@shared/contracts/vehicles';
-import { type Observable, forkJoin, map, switchMap, throwError } from 'rxjs';
+import { type Observable, forkJoin, map, of, switchMap, throwError } from 'rxjs';
+import type { AnalysisSummary, ApplyAnalysisRequest } from '@shared/contracts/analyses';
 import { AnalysesApi, type AnalysisResource } from '../../core/api/analyses-api';
 import { apiErrorMessage } from '../../core/api/api-error';
 import { LogsApi } from '../../core/api/logs-api';
@@ -34,6 +35,7 @@ import {
   redoEdit,
   undoEdit,
 } from './edit-history';
+import type { AnalyseRequest } from './analysis-panel';
 import { cellName } from './grid-model';
 import { pasteText } from './table-clipboard';
 import { parseVeInput } from './ve-input';
@@ -53,6 +55,7 @@ interface Loaded {
   revisions: RevisionSummary[];
   head: Revision;
   logs: LogResource[];
+  analyses: AnalysisSummary[];
 }
 
 /**
@@ -73,6 +76,8 @@ export class TableStore {
   private readonly editedValues = signal<readonly (readonly number[])[]>([]);
   private readonly editHistory = signal<EditHistory>(EMPTY_HISTORY);
   private readonly latestAnalysis = signal<AnalysisResource | null>(null);
+  private readonly lastAnalyseError = signal<string | null>(null);
+  private readonly openedBaseValues = signal<readonly (readonly number[])[] | null>(null);
   private readonly waitingFor = signal<TableBusy>('loading');
   private readonly currentSelection = signal<CellSelection | null>(null);
   private readonly lockSet = signal<CellSet>(new Set());
@@ -91,8 +96,19 @@ export class TableStore {
   readonly readyLogs = computed(() =>
     (this.loaded()?.logs ?? []).filter((log) => log.status === 'ready'),
   );
-  /** The analysis run in this session on the loaded revision, if any. */
+  /** The analysis shown: run in this session, or an earlier one opened again. */
   readonly analysis = this.latestAnalysis.asReadonly();
+  /**
+   * The VE of the analysis's base revision: the loaded head's edited-from values, or those of the
+   * older revision an earlier analysis was run on (so a preview matches what the server applies).
+   */
+  readonly analysisBaseValues = computed(
+    () => this.openedBaseValues() ?? this.loaded()?.head.values ?? [],
+  );
+  /** The table's analyses, newest first (summaries). */
+  readonly analyses = computed(() => this.loaded()?.analyses ?? []);
+  /** The server's refusal of the last analysis run, null when it ran or none was run. */
+  readonly analyseError = this.lastAnalyseError.asReadonly();
   /** What the workspace waits for. */
   readonly busy = this.waitingFor.asReadonly();
   /** Whether there is an edit to undo. */
@@ -134,6 +150,7 @@ export class TableStore {
           revisions: this.tablesApi.revisions(table.id).pipe(map((list) => list.items)),
           head: this.tablesApi.revision(table.headRevisionId),
           logs: this.logsApi.listForVehicle(table.vehicleId).pipe(map((list) => list.items)),
+          analyses: this.analysesApi.listForTable(table.id).pipe(map((list) => list.items)),
         }).pipe(map((rest) => ({ table, ...rest })));
       }),
     );
@@ -146,6 +163,8 @@ export class TableStore {
       this.editedValues.set(loaded.head.values);
       this.editHistory.set(EMPTY_HISTORY);
       this.latestAnalysis.set(null);
+      this.lastAnalyseError.set(null);
+      this.openedBaseValues.set(null);
       this.currentSelection.set(
         isSameTable && selection ? clampSelection(selection, rows, cols) : null,
       );
@@ -246,28 +265,72 @@ export class TableStore {
     );
   }
 
-  /** Runs an analysis of `logIds` against the loaded revision. */
-  analyse(logIds: readonly string[]): void {
+  /** Runs an analysis of the chosen logs with the chosen settings against the loaded revision. */
+  analyse(request: AnalyseRequest): void {
     const table = this.table();
     const base = this.revision();
-    if (!table || !base || logIds.length === 0 || this.waitingFor()) return;
+    if (!table || !base || request.logIds.length === 0 || this.waitingFor()) return;
     this.waitingFor.set('analysing');
-    const body = { baseRevisionId: base.id, logIds: [...logIds] };
-    this.run(this.analysesApi.run(table.id, body), 'The analysis failed.', (analysis) => {
+    this.lastAnalyseError.set(null);
+    const body = {
+      baseRevisionId: base.id,
+      logIds: [...request.logIds],
+      settings: request.settings,
+    };
+    this.run(
+      this.analysesApi.run(table.id, body),
+      'The analysis failed.',
+      (analysis) => {
+        this.latestAnalysis.set(analysis);
+        this.openedBaseValues.set(null);
+        this.refreshAnalyses(table.id);
+      },
+      (message) => this.lastAnalyseError.set(message),
+    );
+  }
+
+  /** Shows an earlier analysis of this table again (its overlays, plots and apply). */
+  openAnalysis(analysisId: string): void {
+    if (this.waitingFor()) return;
+    this.waitingFor.set('analysing');
+    const head = this.revision();
+    const request = this.analysesApi
+      .get(analysisId)
+      .pipe(
+        switchMap((analysis) =>
+          analysis.baseRevisionId === head?.id
+            ? of({ analysis, base: head })
+            : this.tablesApi
+                .revision(analysis.baseRevisionId)
+                .pipe(map((base) => ({ analysis, base }))),
+        ),
+      );
+    this.run(request, 'The analysis could not be loaded.', ({ analysis, base }) => {
+      this.openedBaseValues.set(base.id === head?.id ? null : base.values);
       this.latestAnalysis.set(analysis);
     });
   }
 
-  /** Applies the analysis at `stepFraction` as a new draft revision, then reloads. */
-  applyAnalysis(stepFraction: number, message: string): void {
+  /** Applies the analysis shown with the panel's options as a new draft revision, then reloads. */
+  applyAnalysis(body: ApplyAnalysisRequest): void {
     const table = this.table();
     const analysis = this.latestAnalysis();
     if (!table || !analysis || this.waitingFor()) return;
     this.waitingFor.set('applying');
-    const body = { stepFraction, message: message || undefined };
     this.run(this.analysesApi.apply(analysis.id, body), 'Applying failed.', (revision) =>
       this.announceAndReload(revision, `Applied as draft revision ${revision.number}.`),
     );
+  }
+
+  private refreshAnalyses(tableId: string): void {
+    this.analysesApi
+      .listForTable(tableId)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (list) => this.loaded.update((l) => (l ? { ...l, analyses: list.items } : l)),
+        // The list is a convenience beside the analysis just shown; a miss is not worth a message.
+        error: () => undefined,
+      });
   }
 
   private announceAndReload(revision: Revision, text: string): void {
@@ -294,7 +357,12 @@ export class TableStore {
     this.editHistory.set(next.history);
   }
 
-  private run<T>(request: Observable<T>, fallback: string, onSuccess: (value: T) => void): void {
+  private run<T>(
+    request: Observable<T>,
+    fallback: string,
+    onSuccess: (value: T) => void,
+    onError?: (message: string) => void,
+  ): void {
     request.pipe(takeUntilDestroyed(this.destroyRef)).subscribe({
       next: (value) => {
         this.waitingFor.set(null);
@@ -305,6 +373,7 @@ export class TableStore {
         const text = error instanceof Error ? error.message : apiErrorMessage(error, fallback);
         this.snackBar.open(text, 'Dismiss', { duration: 8000 });
         this.waitingFor.set(null);
+        onError?.(text);
       },
     });
   }

@@ -139,6 +139,9 @@ describe('TableWorkspace', () => {
     http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 1 });
     http.expectOne('/api/revisions/r1').flush(REVISION);
     http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
+    http
+      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
+      .flush({ items: [], total: 0 });
     await settle();
     store = fixture.debugElement.injector.get(TableStore);
   });
@@ -149,8 +152,13 @@ describe('TableWorkspace', () => {
     expect(cellText(0, 0)).toBe('40.0');
     expect(host().querySelector('app-colour-legend')?.textContent).toContain('VE %');
 
-    store.analyse(['l1']);
-    http.expectOne('/api/tables/t1/analyses').flush(ANALYSIS);
+    store.analyse({ logIds: ['l1'], settings: {} });
+    http
+      .expectOne((r) => r.method === 'POST' && r.url === '/api/tables/t1/analyses')
+      .flush(ANALYSIS);
+    http
+      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
+      .flush({ items: [], total: 0 });
     await settle();
     const toggle = await loader.getHarness(MatButtonToggleHarness.with({ text: 'Lambda error %' }));
     await toggle.check();

@@ -19,6 +19,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
 import { Session } from '../../core/auth/session';
+import { AnalysisHistory } from './analysis-history';
 import { AnalysisPanel, type ApplyRequest } from './analysis-panel';
 import type { CellOperation } from './cell-operations';
 import { CellOpsBar } from './cell-ops-bar';
@@ -27,6 +28,7 @@ import { historyKeyAction } from './edit-history';
 import { LeanBanner } from './lean-banner';
 import { OVERLAYS, overlayView, type OverlayKind } from './overlays';
 import { type CellEditRequest, TableGrid } from './table-grid';
+import { WorkspacePlots } from './plots/workspace-plots';
 import { TableStore } from './table-store';
 
 /**
@@ -37,6 +39,7 @@ import { TableStore } from './table-store';
   selector: 'app-table-workspace',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
+    AnalysisHistory,
     AnalysisPanel,
     CellOpsBar,
     ColourLegend,
@@ -50,6 +53,7 @@ import { TableStore } from './table-store';
     MatTooltipModule,
     RouterLink,
     TableGrid,
+    WorkspacePlots,
   ],
   providers: [TableStore],
   templateUrl: './table-workspace.html',
@@ -72,6 +76,19 @@ export class TableWorkspace {
     this.store.analysis();
     return 've';
   });
+  /** The analysis panel's live preview of applying the analysis (null: none), shown as the proposal. */
+  protected readonly analysisPreview = signal<number[][] | null>(null);
+  /** The cell the plots detail: the selection's moving end. */
+  protected readonly selectedCell = computed(() => {
+    const focus = this.store.selection()?.focus;
+    return focus ? { row: focus.row, col: focus.col } : null;
+  });
+  /** The number of the revision the analysis shown was run on (the head's, before one runs). */
+  protected readonly analysisBaseNumber = computed(() => {
+    const analysis = this.store.analysis();
+    const id = analysis?.baseRevisionId ?? this.store.revision()?.id;
+    return this.store.revisions().find((r) => r.id === id)?.number ?? null;
+  });
   /** The message of the next saved revision. */
   protected readonly saveMessage = signal('');
 
@@ -84,6 +101,7 @@ export class TableWorkspace {
       values: this.store.values(),
       baseValues: this.store.revision()?.values ?? [],
       analysis: this.store.analysis(),
+      preview: this.store.analysis() ? this.analysisPreview() : null,
     }),
   );
   /** Whether values can be changed now: a tuner, looking at the VE. */
@@ -161,7 +179,12 @@ export class TableWorkspace {
    * store takes its whole body (settings, locks, only-cells): step fraction and message for now.
    */
   protected apply(request: ApplyRequest): void {
-    this.store.applyAnalysis(request.body.stepFraction ?? 0.5, request.body.message ?? '');
+    this.store.applyAnalysis(request.body);
+  }
+
+  /** A cell picked in a plot becomes the grid's selection, so both show the same cell. */
+  protected pickCell(cell: { row: number; col: number }): void {
+    this.store.select({ anchor: cell, focus: cell });
   }
 }
 
