@@ -96,7 +96,9 @@ async function main() {
 
     const report = join(tmp, 'jest.json');
     say('jest (shared, server, web, e2e)…');
-    spawnSync('npx', ['jest', '--json', `--outputFile=${report}`, ...jestArgs], {
+    // --forceExit: a handle a test forgot (a browser left open) must not hang CI; Jest still
+    // names the problem in its output, and the run's result is unchanged.
+    spawnSync('npx', ['jest', '--json', '--forceExit', `--outputFile=${report}`, ...jestArgs], {
       cwd: ROOT,
       stdio: 'inherit',
       env,

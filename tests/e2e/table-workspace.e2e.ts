@@ -44,17 +44,25 @@ function pageProblems(browser: TestBrowser): string[] {
 describe('the table workspace', () => {
   let app: RunningApp;
   let browser: TestBrowser;
+  /** Every browser launched here: each test starts its own, all are closed at the end. */
+  const launched: TestBrowser[] = [];
+  const launch = async (scheme: 'light' | 'dark'): Promise<TestBrowser> => {
+    const started = await launchBrowser(scheme);
+    launched.push(started);
+    return started;
+  };
 
   beforeAll(async () => {
     app = await startRunningApp();
   });
   afterAll(async () => {
-    await browser?.close();
+    // A browser left open keeps Jest from exiting; closing one twice does no harm.
+    await Promise.all(launched.map((b) => b.close()));
     await app?.close();
   });
 
   it('When the tuner opens Main VE in dark mode, then the grid shows in our dark colours', async () => {
-    browser = await launchBrowser('dark');
+    browser = await launch('dark');
     const page = await browser.newPage();
     await signInThroughForm(page, app.url, TUNER, demoPassword());
     await openTables(page);
@@ -75,7 +83,7 @@ describe('the table workspace', () => {
   });
 
   it('When the tuner edits, analyses and applies at step 1, then a new revision is shown', async () => {
-    browser = await launchBrowser('light');
+    browser = await launch('light');
     const page = await browser.newPage();
     await signInThroughForm(page, app.url, TUNER, demoPassword());
     await openTables(page);
@@ -119,7 +127,7 @@ describe('the table workspace', () => {
   });
 
   it('When the tuner scales, undoes, redoes, pastes, locks and saves, then the revision holds what the grid showed', async () => {
-    browser = await launchBrowser('light');
+    browser = await launch('light');
     await browser.context.grantPermissions(['clipboard-read', 'clipboard-write'], {
       origin: app.url,
     });
