@@ -43,7 +43,7 @@ export async function waitForRevision(page: Page, number: number): Promise<void>
 export async function showOverlay(page: Page, label: string): Promise<void> {
   const toggle = page
     .getByRole('radiogroup', { name: 'Cell overlay' })
-    .getByRole('radio', { name: label });
+    .getByRole('radio', { name: label, exact: true });
   await toggle.click();
   // The grid names its overlay in its accessible label once the switch has rendered.
   await page.locator(`app-table-grid ag-grid-angular[aria-label*="${label}"]`).first().waitFor();
