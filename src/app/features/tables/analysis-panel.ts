@@ -88,6 +88,8 @@ export class AnalysisPanel {
   readonly busy = input<TableBusy>(null);
   /** The revision the analysis starts from, for the hint. */
   readonly baseNumber = input<number | null>(null);
+  /** Number of the revision a new run analyses (the loaded head); default `baseNumber`. */
+  readonly runNumber = input<number | null>(null);
   /** Whether the grid has unsaved edits (an analysis runs on the saved revision). */
   readonly isDirty = input(false);
   /** VE of the analysed base revision `[row][col]`, for the preview. */

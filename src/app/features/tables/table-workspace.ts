@@ -99,7 +99,7 @@ export class TableWorkspace {
     overlayView({
       kind: this.overlay(),
       values: this.store.values(),
-      baseValues: this.store.revision()?.values ?? [],
+      baseValues: this.store.analysisBaseValues(),
       analysis: this.store.analysis(),
       preview: this.store.analysis() ? this.analysisPreview() : null,
     }),

@@ -138,7 +138,7 @@ describe('cell detail text', () => {
         ],
       },
       [
-        ['VE now', '88.0 % (saved 85.0 %)'],
+        ['VE now', '88.0 % (analysed revision 85.0 %)'],
         ['Airflow', '51.4 g/s'],
         ['Injector duty', '16.0 %'],
       ],

@@ -19,7 +19,7 @@ export interface CellDetailInput {
   readonly mapAxisKpa: readonly number[];
   /** VE now (with unsaved edits), `[row][col]`. */
   readonly values: readonly (readonly number[])[];
-  /** VE of the saved revision, to tell an edit. */
+  /** VE of the revision the analysis ran on (the saved head before one runs), to tell a change. */
   readonly baseValues: readonly (readonly number[])[];
   /** The analysis, if any. */
   readonly analysis: AnalysisResource | null;
@@ -146,7 +146,7 @@ export function cellDetail(input: CellDetailInput): CellDetail {
 
   const veText =
     saved !== undefined && ve !== saved
-      ? `${fixed(ve, 1, ' %')} (saved ${fixed(saved, 1, ' %')})`
+      ? `${fixed(ve, 1, ' %')} (analysed revision ${fixed(saved, 1, ' %')})`
       : fixed(ve, 1, ' %');
   const lines: DetailLine[] = [line('VE now', veText)];
   if (input.analysis) {
