@@ -67,6 +67,19 @@ describe('grid model', () => {
     ]);
   });
 
+  it('When the MAP axis is shown in psi(a), then the corner names the unit and rows their psi', () => {
+    const [map] = gridColumns([1000], {
+      mapAxis: { unit: 'psi(a)', label: (kpa) => (kpa / 6.894757).toFixed(2) },
+      isEditable: () => true,
+      decor: () => ({ selection: null, isLocked: false }),
+      edit: () => undefined,
+    });
+    expect(map?.headerName).toBe('psi(a) \\ rpm');
+    const format = map?.valueFormatter as (p: { value: unknown }) => string;
+    // 1 psi = 6.894757 kPa (NIST SP 811, 2008 edition, Appendix B.8).
+    expect(format({ value: 101.325 })).toBe('14.70');
+  });
+
   it('When a cell is named for a message, then its breakpoints say which', () => {
     expect(cellName([1000, 2000], [30, 101.3], 1, 0)).toBe('cell at 1000 rpm, 101.3 kPa');
   });

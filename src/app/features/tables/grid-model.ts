@@ -88,8 +88,21 @@ export interface CellEditRequest {
   readonly raw: unknown;
 }
 
+/** How the MAP axis reads: its unit for the corner header and each breakpoint's text. */
+export interface MapAxisDisplay {
+  /** The unit, e.g. "kPa" or "psi(a)". */
+  readonly unit: string;
+  /** A breakpoint (kPa absolute) as shown. */
+  readonly label: (kpa: number) => string;
+}
+
+/** The MAP axis in kPa, as stored. */
+export const KPA_AXIS: MapAxisDisplay = { unit: 'kPa', label: (kpa) => breakpointLabel(kpa) };
+
 /** What the value columns ask of the grid component. */
 export interface ColumnHooks {
+  /** How the MAP axis reads; default kPa. */
+  readonly mapAxis?: MapAxisDisplay;
   /** Whether cells can be edited now. */
   readonly isEditable: () => boolean;
   /** The selection and lock marks of a cell now. */
@@ -108,14 +121,14 @@ export function gridColumns(rpmAxis: readonly number[], hooks: ColumnHooks): Col
   return [
     {
       colId: 'map',
-      headerName: 'kPa \\ rpm',
+      headerName: `${(hooks.mapAxis ?? KPA_AXIS).unit} \\ rpm`,
       pinned: 'left',
       width: 72,
       editable: false,
       sortable: false,
       resizable: false,
       valueGetter: (p) => p.data?.mapKpa,
-      valueFormatter: (p) => breakpointLabel(Number(p.value)),
+      valueFormatter: (p) => (hooks.mapAxis ?? KPA_AXIS).label(Number(p.value)),
       cellClass: 'cs-axis-cell',
     },
     ...rpmAxis.map((rpm, col): ColDef<GridRow> => ({

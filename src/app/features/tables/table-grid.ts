@@ -44,7 +44,14 @@ import {
   selectionLabel,
   stepCell,
 } from './cell-range';
-import { type CellEditRequest, gridColumns, gridRows, type GridRow } from './grid-model';
+import {
+  type CellEditRequest,
+  KPA_AXIS,
+  type MapAxisDisplay,
+  gridColumns,
+  gridRows,
+  type GridRow,
+} from './grid-model';
 import { GRID_MODULES, GRID_THEME } from './grid-theme';
 import type { CellView } from './overlays';
 import { formatTsv } from './table-clipboard';
@@ -109,6 +116,8 @@ export class TableGrid {
   readonly rpmAxis = input.required<readonly number[]>();
   /** MAP breakpoints in kPa (rows). */
   readonly mapAxisKpa = input.required<readonly number[]>();
+  /** How the MAP axis reads (kPa, or psi(a) for imperial users). */
+  readonly mapAxis = input<MapAxisDisplay>(KPA_AXIS);
   /** What each cell shows, `[row][col]`. */
   readonly cells = input.required<readonly (readonly CellView[])[]>();
   /** Whether cells can be edited (only while VE is shown). */
@@ -163,6 +172,7 @@ export class TableGrid {
   /** The MAP column, then one column per RPM breakpoint. */
   protected readonly columns = computed(() =>
     gridColumns(this.rpmAxis(), {
+      mapAxis: this.mapAxis(),
       isEditable: () => this.editable(),
       decor: (row, col) => ({
         selection: this.bounds(),

@@ -12,6 +12,7 @@ import { provideRouter } from '@angular/router';
 import { noAnimations } from '../../../testing/harness-helpers';
 import type { AnalysisCell, AnalysisResource } from '../../core/api/analyses-api';
 import { Session } from '../../core/auth/session';
+import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { AnalysisPanel } from './analysis-panel';
 import { TableStore } from './table-store';
 import { TableWorkspace } from './table-workspace';
@@ -110,7 +111,11 @@ describe('TableWorkspace', () => {
     await settle();
   }
 
+  /** The user's unit system, as the preferences would give it. */
+  const units = signal<'metric' | 'imperial'>('metric');
+
   beforeEach(async () => {
+    units.set('metric');
     localStorage.clear();
     TestBed.configureTestingModule({
       providers: [
@@ -122,6 +127,7 @@ describe('TableWorkspace', () => {
           provide: Session,
           useValue: { user: signal({ id: 'u1', name: 'Demo Tuner', roles: ['tuner'] }) },
         },
+        { provide: DisplayPreferences, useValue: { units } },
       ],
     });
     // The analysis panel has its own spec; here it is an inert element, so the grid is tested alone.
@@ -263,5 +269,21 @@ describe('TableWorkspace', () => {
     expect(store.values()[2]).toEqual([60, 61.5, 63, 66, 68]);
     expect(store.values()[3]).toEqual([70, 71, 73, 76, 78]);
     expect(store.historyLabels().undo).toBe('Undo Paste 2 × 2 values (4 cells)');
+  });
+
+  it('When the user prefers imperial units, then the MAP axis reads in psi(a)', async () => {
+    const corner = () =>
+      host().querySelector('.ag-header-cell[col-id="map"]')?.textContent?.trim() ?? '';
+    const mapOfRow = (row: number) =>
+      host()
+        .querySelector(`.ag-row[row-index="${row}"] .ag-cell[col-id="map"]`)
+        ?.textContent?.trim() ?? '';
+    expect(corner()).toBe('kPa \\ rpm');
+    const metricRow = mapOfRow(0);
+    units.set('imperial');
+    await settle();
+    expect(corner()).toBe('psi(a) \\ rpm');
+    // 1 psi = 6.894757 kPa (NIST SP 811, 2008 edition, Appendix B.8).
+    expect(mapOfRow(0)).toBe((Number(metricRow) / 6.894757).toFixed(2));
   });
 });

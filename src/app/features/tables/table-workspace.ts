@@ -19,12 +19,16 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
 import { Session } from '../../core/auth/session';
+import { DisplayPreferences } from '../../core/preferences/display-preferences';
+import { formatQuantity } from '../../shared/units/format-quantity';
+import { unitLabel } from '../../shared/units/display-units';
 import { AnalysisHistory } from './analysis-history';
 import { AnalysisPanel, type ApplyRequest } from './analysis-panel';
 import type { CellOperation } from './cell-operations';
 import { CellOpsBar } from './cell-ops-bar';
 import { ColourLegend } from './colour-legend';
 import { historyKeyAction } from './edit-history';
+import { KPA_AXIS, type MapAxisDisplay } from './grid-model';
 import { LeanBanner } from './lean-banner';
 import { OVERLAYS, overlayView, type OverlayKind } from './overlays';
 import { type CellEditRequest, TableGrid } from './table-grid';
@@ -63,6 +67,7 @@ import { TableStore } from './table-store';
 export class TableWorkspace {
   private readonly session = inject(Session);
   private readonly snackBar = inject(MatSnackBar);
+  private readonly preferences = inject(DisplayPreferences);
   /** The workspace's state. */
   protected readonly store = inject(TableStore);
 
@@ -88,6 +93,15 @@ export class TableWorkspace {
     const analysis = this.store.analysis();
     const id = analysis?.baseRevisionId ?? this.store.revision()?.id;
     return this.store.revisions().find((r) => r.id === id)?.number ?? null;
+  });
+  /** The MAP axis in the user's units: kPa, or psi(a) for imperial (values stay kPa inside). */
+  protected readonly mapAxis = computed((): MapAxisDisplay => {
+    const units = this.preferences.units();
+    if (units === 'metric') return KPA_AXIS;
+    return {
+      unit: unitLabel('pressure', units),
+      label: (kpa) => formatQuantity('pressure', kpa, units, { unit: false }),
+    };
   });
   /** The message of the next saved revision. */
   protected readonly saveMessage = signal('');
