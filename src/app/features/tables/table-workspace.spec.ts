@@ -127,7 +127,7 @@ describe('TableWorkspace', () => {
           provide: Session,
           useValue: { user: signal({ id: 'u1', name: 'Demo Tuner', roles: ['tuner'] }) },
         },
-        { provide: DisplayPreferences, useValue: { units } },
+        { provide: DisplayPreferences, useValue: { units, mixture: signal('lambda') } },
       ],
     });
     // The analysis panel has its own spec; here it is an inert element, so the grid is tested alone.

@@ -103,6 +103,8 @@ export class TableWorkspace {
       label: (kpa) => formatQuantity('pressure', kpa, units, { unit: false }),
     };
   });
+  /** Lambda or AFR, as the user prefers. */
+  protected readonly mixture = computed(() => this.preferences.mixture());
   /** The message of the next saved revision. */
   protected readonly saveMessage = signal('');
 

@@ -163,6 +163,15 @@ describe('cell detail text', () => {
     expect(detail.lines.map((l) => [l.label, l.value])).toEqual(lines);
   });
 
+  it('When the user reads AFR, then lambda is shown times the fuel’s stoichiometric AFR', () => {
+    const line = cellDetail({ ...INPUT, mixture: 'afr' }).lines.find((l) => l.label === 'AFR');
+    // AFR = λ·AFR_st (the project's reference.md §3, practice [P]; the definition of lambda):
+    // 1.000 × 14.7 = 14.70 commanded. The error percentage is the same in either display.
+    expect(line?.value).toMatch(/^14\.\d\d measured vs 14\.70 commanded \(▲ \+1\.3 % lean\)$/);
+    const lambda = cellDetail({ ...INPUT, vehicle: null, mixture: 'afr' }).lines;
+    expect(lambda.some((l) => l.label === 'Lambda')).toBe(true);
+  });
+
   it('When the injectors are small, then the duty line warns', () => {
     const small = { engine: { ...ENGINE, injectorCcMin: 80 } };
     const duty = cellDetail({ ...INPUT, vehicle: small }).lines.at(-1);

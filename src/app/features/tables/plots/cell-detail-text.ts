@@ -4,6 +4,7 @@
  * at that cell for the vehicle's engine, with the assumptions behind those two figures.
  */
 import type { Vehicle } from '@shared/contracts/vehicles';
+import type { MixtureDisplay } from '@shared/contracts/preferences';
 import { type DutyLevel, assumedPowerLambda, cellPhysics } from '@shared/physics';
 import type { AnalysisResource } from '../../../core/api/analyses-api';
 import { type CellRef, NO_FIGURE, grouped, lambdaErrorText, signed } from './plot-format';
@@ -27,6 +28,8 @@ export interface CellDetailInput {
   readonly vehicle: Pick<Vehicle, 'engine'> | null;
   /** The cell. */
   readonly cell: CellRef;
+  /** How the user reads mixture: lambda (default) or AFR with the vehicle's stoichiometric AFR. */
+  readonly mixture?: MixtureDisplay;
 }
 
 /** One line of the detail: a label and its figure. */
@@ -134,6 +137,11 @@ function assumptionsText(input: CellDetailInput, physics: CellPhysicsFigures | n
 
 /** The detail of one cell. */
 export function cellDetail(input: CellDetailInput): CellDetail {
+  const stoichAfr = input.vehicle?.engine.stoichAfr;
+  // AFR needs the fuel's stoichiometric ratio; without the vehicle, lambda is shown.
+  const isAfr = input.mixture === 'afr' && stoichAfr !== undefined;
+  const mixtureText = (lambda: number): string =>
+    isAfr ? (lambda * (stoichAfr as number)).toFixed(2) : lambda.toFixed(3);
   const { row, col } = input.cell;
   const rpm = input.rpmAxis[col];
   const mapKpa = input.mapAxisKpa[row];
@@ -161,11 +169,11 @@ export function cellDetail(input: CellDetailInput): CellDetail {
       line('Effective count', fixed(cell?.effectiveCount, 1)),
       line('Spread', spread === null ? NO_FIGURE : `${(spread * 100).toFixed(1)} %`),
       line(
-        'Lambda',
+        isAfr ? 'AFR' : 'Lambda',
         !cell || cell.lambdaMeasured === null || cell.lambdaCommanded === null
           ? NO_FIGURE
-          : `${cell.lambdaMeasured.toFixed(3)} measured vs ` +
-              `${cell.lambdaCommanded.toFixed(3)} commanded` +
+          : `${mixtureText(cell.lambdaMeasured)} measured vs ` +
+              `${mixtureText(cell.lambdaCommanded)} commanded` +
               (cell.lambdaErrorPct === null ? '' : ` (${lambdaErrorText(cell.lambdaErrorPct)})`),
       ),
       line('Status', STATUS_TEXT[cell?.status ?? 'no_data'] ?? cell?.status ?? NO_FIGURE),

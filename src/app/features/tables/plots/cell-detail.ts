@@ -1,3 +1,4 @@
+import type { MixtureDisplay } from '@shared/contracts/preferences';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatCardModule } from '@angular/material/card';
 import type { Vehicle } from '@shared/contracts/vehicles';
@@ -97,6 +98,8 @@ export class CellDetail {
   readonly vehicle = input<Pick<Vehicle, 'engine'> | null>(null);
   /** The cell to show; null shows a hint. */
   readonly cell = input<CellRef | null>(null);
+  /** Lambda or AFR, as the user prefers. */
+  readonly mixture = input<MixtureDisplay>('lambda');
 
   /** The cell's lines, or null when no cell is picked (or it is off the table). */
   protected readonly detail = computed(() => {
@@ -112,6 +115,7 @@ export class CellDetail {
       analysis: this.analysis(),
       vehicle: this.vehicle(),
       cell,
+      mixture: this.mixture(),
     });
   });
 }

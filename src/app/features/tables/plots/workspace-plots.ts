@@ -1,3 +1,4 @@
+import type { MixtureDisplay } from '@shared/contracts/preferences';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -85,6 +86,8 @@ export class WorkspacePlots {
   readonly selectedCell = input<CellRef | null>(null);
   /** Whether to draw for a dark page; null follows the page's own scheme. */
   readonly isDark = input<boolean | null>(null);
+  /** Lambda or AFR in the cell detail, as the user prefers. */
+  readonly mixture = input<MixtureDisplay>('lambda');
   /** A cell picked on a chart. */
   readonly cellPick = output<CellRef>();
 
