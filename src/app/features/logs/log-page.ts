@@ -9,7 +9,8 @@ import { switchMap, takeWhile, timer } from 'rxjs';
 import { apiErrorMessage, isHttpStatus } from '../../core/api/api-error';
 import { LogsApi } from '../../core/api/logs-api';
 import { VehiclesApi } from '../../core/api/vehicles-api';
-import { mappingRows, summaryRows } from './log-rows';
+import { DisplayPreferences } from '../../core/preferences/display-preferences';
+import { displaySummaryRows, mappingRows, summaryRows } from './log-rows';
 import { LogSeriesChart } from './log-series-chart';
 import {
   MAPPING_SOURCE_LABELS,
@@ -48,6 +49,7 @@ const SHOWN_PROBLEMS = 20;
 export class LogPage {
   private readonly logsApi = inject(LogsApi);
   private readonly vehiclesApi = inject(VehiclesApi);
+  private readonly preferences = inject(DisplayPreferences);
 
   /** The log's id, from the route. */
   readonly id = input.required<string>();
@@ -91,7 +93,14 @@ export class LogPage {
 
   /** Each channel's figures. */
   protected readonly summary = computed(() =>
-    this.log.hasValue() ? summaryRows(this.log.value().channelSummary) : [],
+    this.log.hasValue()
+      ? displaySummaryRows(
+          summaryRows(this.log.value().channelSummary),
+          this.preferences.units(),
+          this.preferences.mixture(),
+          this.vehicle.hasValue() ? this.vehicle.value().engine.stoichAfr : null,
+        )
+      : [],
   );
 
   /** The first problems of the parse report. */

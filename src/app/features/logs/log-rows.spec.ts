@@ -1,5 +1,12 @@
 import type { LogResource } from '@shared/contracts/logs';
-import { mappingRows, mergeLogRows, summaryRows, upsertLogRow } from './log-rows';
+import {
+  type SummaryRow,
+  displaySummaryRows,
+  mappingRows,
+  mergeLogRows,
+  summaryRows,
+  upsertLogRow,
+} from './log-rows';
 
 /** A log with only the fields the rows look at filled in. */
 function log(id: string, createdAt: string): LogResource {
@@ -51,5 +58,49 @@ describe('mappingRows and summaryRows', () => {
       'map',
     ]);
     expect(summaryRows(null)).toEqual([]);
+  });
+});
+
+describe('displaySummaryRows', () => {
+  const rows: SummaryRow[] = [
+    { channel: 'map', min: 101.325, max: 200, mean: 150, nanCount: 0 },
+    { channel: 'boost', min: 0, max: 100, mean: 50, nanCount: 0 },
+    { channel: 'iat', min: 100, max: 100, mean: 100, nanCount: 0 },
+    { channel: 'lambda', min: 0.8, max: 1, mean: null, nanCount: 3 },
+    { channel: 'rpm', min: 800, max: 7000, mean: 3000, nanCount: 0 },
+  ];
+  const figures = (units: 'metric' | 'imperial', mixture: 'lambda' | 'afr', afr: number | null) =>
+    displaySummaryRows(rows, units, mixture, afr).map((r) => [
+      r.channel,
+      r.unit,
+      r.min === null ? null : Number(r.min.toFixed(3)),
+    ]);
+
+  it('When the user reads metric and lambda, then the figures stay as stored', () => {
+    expect(figures('metric', 'lambda', 14.7)).toEqual([
+      ['map', 'kPa', 101.325],
+      ['boost', 'kPa gauge', 0],
+      ['iat', '°C', 100],
+      ['lambda', 'λ', 0.8],
+      ['rpm', 'rpm', 800],
+    ]);
+  });
+
+  it('When the user reads imperial and AFR, then pressure, temperature and mixture convert', () => {
+    // 101.325 kPa = 14.696 psi (NIST SP 811, 2008 edition, Appendix B.8: 1 psi = 6.894757 kPa);
+    // 100 °C = 212 °F (the same guide, B.9); AFR = λ·AFR_st: 0.8 × 14.7 = 11.76. Gauge boost
+    // keeps kPa, as psi(a) would call it absolute.
+    expect(figures('imperial', 'afr', 14.7)).toEqual([
+      ['map', 'psi(a)', 14.696],
+      ['boost', 'kPa gauge', 0],
+      ['iat', '°F', 212],
+      ['lambda', 'AFR', 11.76],
+      ['rpm', 'rpm', 800],
+    ]);
+  });
+
+  it('When AFR is preferred but the fuel is not known yet, then lambda is shown', () => {
+    expect(figures('metric', 'afr', null)[3]).toEqual(['lambda', 'λ', 0.8]);
+    expect(displaySummaryRows(rows, 'metric', 'afr', 14.7)[3]?.mean).toBeNull();
   });
 });

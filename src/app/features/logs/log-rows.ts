@@ -1,3 +1,5 @@
+import type { MixtureDisplay, UnitSystem } from '@shared/contracts/preferences';
+import { type Quantity, toDisplay, unitLabel } from '../../shared/units/display-units';
 import { CHANNELS, type Channel } from '@shared/core/channels';
 import type { LogResource } from '@shared/contracts/logs';
 
@@ -67,5 +69,62 @@ export function summaryRows(summary: LogResource['channelSummary']): SummaryRow[
   return CHANNELS.flatMap((channel) => {
     const figures = summary[channel];
     return figures === undefined ? [] : [{ channel, ...figures }];
+  });
+}
+
+/** A summary row in the user's units, with the unit it is shown in. */
+export interface DisplaySummaryRow extends SummaryRow {
+  /** The unit of min, max and mean as shown ("psi(a)", "°F", "AFR", …); empty for none. */
+  unit: string;
+}
+
+/** Channels shown through a display quantity when the user prefers imperial. */
+const CHANNEL_QUANTITY: Partial<Record<Channel, Quantity>> = {
+  map: 'pressure',
+  baro: 'pressure',
+  iat: 'temperature',
+  ect: 'temperature',
+  speed: 'speed',
+};
+
+/** Readable canonical units for the channels that keep theirs. */
+const KEPT_UNITS: Partial<Record<Channel, string>> = {
+  time: 's',
+  rpm: 'rpm',
+  // Gauge pressure: not the absolute "psi(a)" of MAP, so it stays in kPa and says so.
+  boost: 'kPa gauge',
+  tps: '%',
+  stft: '%',
+  ltft: '%',
+  knock: '°',
+  injDuty: '%',
+};
+
+/**
+ * The summary in the user's units: MAP and barometer in psi(a), temperatures in °F, speed in mph
+ * for imperial; lambda channels as AFR with the vehicle's stoichiometric AFR when preferred (and
+ * known). Figures stay metric and lambda otherwise; missing figures stay null.
+ */
+export function displaySummaryRows(
+  rows: readonly SummaryRow[],
+  units: UnitSystem,
+  mixture: MixtureDisplay,
+  stoichAfr: number | null,
+): DisplaySummaryRow[] {
+  return rows.map((row) => {
+    const quantity = CHANNEL_QUANTITY[row.channel];
+    const isMixture = row.channel === 'lambda' || row.channel === 'lambdaTarget';
+    let convert = (value: number): number => value;
+    let unit = KEPT_UNITS[row.channel] ?? '';
+    if (quantity) {
+      convert = (value) => toDisplay(quantity, value, units);
+      unit = unitLabel(quantity, units);
+    } else if (isMixture) {
+      const isAfr = mixture === 'afr' && stoichAfr !== null;
+      convert = (value) => (isAfr ? value * (stoichAfr as number) : value);
+      unit = isAfr ? 'AFR' : 'λ';
+    }
+    const shown = (value: number | null) => (value === null ? null : convert(value));
+    return { ...row, min: shown(row.min), max: shown(row.max), mean: shown(row.mean), unit };
   });
 }
