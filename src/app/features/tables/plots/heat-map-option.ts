@@ -1,3 +1,4 @@
+import type { LegendView } from '../overlays';
 /**
  * The table as an ECharts heat map: RPM across, MAP up, every cell coloured on our OKLab scales
  * (sequential for VE and proposal, diverging around zero for change and lambda error) and
@@ -73,19 +74,8 @@ export interface HeatMapInput {
   readonly theme: ChartTheme;
 }
 
-/** The legend under a plot: a gradient of our scale and its labelled ends. */
-export interface PlotLegend {
-  /** CSS gradient of the scale (left → right). */
-  readonly gradient: string;
-  /** Label of the left end. */
-  readonly low: string;
-  /** Label of the middle ('' for sequential scales). */
-  readonly mid: string;
-  /** Label of the right end. */
-  readonly high: string;
-  /** How to read it. */
-  readonly note: string;
-}
+/** The legend under a plot: the grid's own legend shape (gradient, labelled ends, a note). */
+export type PlotLegend = LegendView;
 
 /** A heat map cell as ECharts data: `[col, row, colour position 0–1, figure]`. */
 type HeatDatum = [number, number, number, number];

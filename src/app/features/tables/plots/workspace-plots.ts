@@ -28,7 +28,7 @@ import { chartTheme, schemeIsDark } from './chart-theme';
 import { curvesOption } from './curves-option';
 import { HEAT_LAYERS, type HeatLayer, heatLegend, heatMapOption } from './heat-map-option';
 import { type CellRef, nearestCell } from './plot-format';
-import { PlotLegend } from './plot-legend';
+import { ColourLegend } from '../colour-legend';
 import { type SampleDatum, samplesCaption, samplesLegend, scatterOption } from './scatter-option';
 
 /** The tabs, in order. */
@@ -58,7 +58,7 @@ export const SAMPLES_MOST = 20000;
     MatProgressBarModule,
     MatTabsModule,
     NgxEchartsDirective,
-    PlotLegend,
+    ColourLegend,
   ],
   providers: [provideCharts()],
   templateUrl: './workspace-plots.html',
