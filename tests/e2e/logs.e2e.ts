@@ -15,26 +15,21 @@ import {
   zoomLogChart,
 } from './helpers/logs';
 import { startRunningApp, type RunningApp } from './support/app-server';
-import { launchBrowser, screenshot, type TestBrowser } from './support/browser';
+import { browserPool, screenshot } from './support/browser';
 
 const VEHICLE = 'Demo hatch 1.6T';
 
 describe('the logs area', () => {
   let app: RunningApp;
-  const browsers: TestBrowser[] = [];
-
+  const browsers = browserPool();
   /** A fresh browser in `scheme`, closed after all tests. */
-  async function openBrowser(scheme: 'light' | 'dark'): Promise<TestBrowser> {
-    const browser = await launchBrowser(scheme);
-    browsers.push(browser);
-    return browser;
-  }
+  const openBrowser = browsers.launch;
 
   beforeAll(async () => {
     app = await startRunningApp();
   });
   afterAll(async () => {
-    for (const browser of browsers) await browser.close();
+    await browsers.closeAll();
     await app?.close();
   });
 
@@ -141,7 +136,6 @@ describe('the logs area', () => {
   });
 
   it('When pages rendered, then the browser reported no CSP violation or script error', () => {
-    const problems = browsers.flatMap((browser) => browser.problems);
-    expect(problems.filter((p) => !/401|Unauthorized|422/.test(p))).toEqual([]);
+    expect(browsers.problems().filter((p) => !/401|Unauthorized|422/.test(p))).toEqual([]);
   });
 });

@@ -24,7 +24,7 @@ import {
   waitForSelectionSize,
 } from './helpers/tables';
 import { startRunningApp, type RunningApp } from './support/app-server';
-import { launchBrowser, screenshot, type TestBrowser } from './support/browser';
+import { browserPool, screenshot, type TestBrowser } from './support/browser';
 
 const TUNER = 'tuner@cellsmith.test';
 const VEHICLE = 'Demo hatch 1.6T';
@@ -45,19 +45,14 @@ describe('the table workspace', () => {
   let app: RunningApp;
   let browser: TestBrowser;
   /** Every browser launched here: each test starts its own, all are closed at the end. */
-  const launched: TestBrowser[] = [];
-  const launch = async (scheme: 'light' | 'dark'): Promise<TestBrowser> => {
-    const started = await launchBrowser(scheme);
-    launched.push(started);
-    return started;
-  };
+  const browsers = browserPool();
+  const launch = browsers.launch;
 
   beforeAll(async () => {
     app = await startRunningApp();
   });
   afterAll(async () => {
-    // A browser left open keeps Jest from exiting; closing one twice does no harm.
-    await Promise.all(launched.map((b) => b.close()));
+    await browsers.closeAll();
     await app?.close();
   });
 

@@ -32,7 +32,7 @@ import {
 } from './helpers/tuner-loop';
 import { openVehicle, openVehicles } from './helpers/vehicles';
 import { startRunningApp, type RunningApp } from './support/app-server';
-import { launchBrowser, screenshot, type TestBrowser } from './support/browser';
+import { browserPool, screenshot, type TestBrowser } from './support/browser';
 
 const TUNER = 'tuner@cellsmith.test';
 const VEHICLE = 'Demo hatch 1.6T';
@@ -48,21 +48,16 @@ function pageProblems(browser: TestBrowser): string[] {
 
 describe('the tuner’s loop in the browser', () => {
   let app: RunningApp;
-  const browsers: TestBrowser[] = [];
+  const browsers = browserPool();
+  const launch = browsers.launch;
   /** The log uploaded by the loop, opened again by the tour. */
   let logPath = '';
-
-  const launch = async (scheme: 'light' | 'dark'): Promise<TestBrowser> => {
-    const browser = await launchBrowser(scheme);
-    browsers.push(browser);
-    return browser;
-  };
 
   beforeAll(async () => {
     app = await startRunningApp();
   });
   afterAll(async () => {
-    await Promise.all(browsers.map((b) => b.close()));
+    await browsers.closeAll();
     await app?.close();
   });
 

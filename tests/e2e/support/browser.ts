@@ -58,6 +58,32 @@ export async function launchBrowser(colorScheme: 'light' | 'dark' = 'light'): Pr
   };
 }
 
+/** Browsers a test file starts, so that all of them are closed once it ends. */
+export interface BrowserPool {
+  /** Launches a browser in `colorScheme` and keeps it for {@link BrowserPool.closeAll}. */
+  launch(colorScheme: 'light' | 'dark'): Promise<TestBrowser>;
+  /** The problems every browser launched so far has reported. */
+  problems(): string[];
+  /** Closes every browser launched (a browser left open keeps Jest from exiting). */
+  closeAll(): Promise<void>;
+}
+
+/** A pool of test browsers: launch per test, close all in `afterAll`. */
+export function browserPool(): BrowserPool {
+  const launched: TestBrowser[] = [];
+  return {
+    async launch(colorScheme) {
+      const browser = await launchBrowser(colorScheme);
+      launched.push(browser);
+      return browser;
+    },
+    problems: () => launched.flatMap((browser) => browser.problems),
+    async closeAll() {
+      await Promise.all(launched.splice(0).map((browser) => browser.close()));
+    },
+  };
+}
+
 /** Saves a full-page screenshot under test-results/screenshots/<name>.png. */
 export async function screenshot(page: Page, name: string): Promise<void> {
   mkdirSync(SCREENSHOT_DIR, { recursive: true });
