@@ -4,32 +4,13 @@ import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import type { ApplyAnalysisRequest } from '@shared/contracts/analyses';
 import { TableStore, locksStorageKey } from './table-store';
+import { answerTableLoad, revisionFixture, tableFixture } from './testing/table-fixtures';
 
-const TABLE = {
-  id: 't1',
-  vehicleId: 'v1',
-  name: 'Main VE',
-  rpmAxis: [1000, 2000],
-  mapAxisKpa: [30, 100],
-  headRevisionId: 'r1',
-  createdAt: '2026-01-01T00:00:00Z',
-};
-const REVISION = {
-  id: 'r1',
-  tableId: 't1',
-  parentId: null,
-  number: 1,
-  status: 'draft',
-  message: 'Initial table',
-  authorId: 'u1',
-  authorName: 'Demo Tuner',
-  analysisId: null,
-  createdAt: '2026-01-01T00:00:00Z',
-  values: [
-    [40, 50],
-    [80, 90],
-  ],
-};
+const TABLE = tableFixture([1000, 2000], [30, 100]);
+const REVISION = revisionFixture([
+  [40, 50],
+  [80, 90],
+]);
 
 describe('TableStore', () => {
   let store: TableStore;
@@ -50,14 +31,7 @@ describe('TableStore', () => {
     store = TestBed.inject(TableStore);
     http = TestBed.inject(HttpTestingController);
     store.load('t1');
-    http.expectOne('/api/tables/t1').flush(TABLE);
-    http.expectOne('/api/vehicles/v1').flush({ id: 'v1', label: 'Demo hatch' });
-    http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 1 });
-    http.expectOne('/api/revisions/r1').flush(REVISION);
-    http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
-    http
-      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
-      .flush({ items: [], total: 0 });
+    answerTableLoad(http, TABLE, REVISION);
   });
 
   afterEach(() => http.verify());
@@ -203,14 +177,7 @@ describe('TableStore', () => {
     ]);
 
     store.load('t1');
-    http.expectOne('/api/tables/t1').flush(TABLE);
-    http.expectOne('/api/vehicles/v1').flush({ id: 'v1', label: 'Demo hatch' });
-    http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 1 });
-    http.expectOne('/api/revisions/r1').flush(REVISION);
-    http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
-    http
-      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
-      .flush({ items: [], total: 0 });
+    answerTableLoad(http, TABLE, REVISION);
     expect(store.lockedCells()).toEqual([[1, 1]]);
     expect(store.selectedCells()).toHaveLength(4);
 

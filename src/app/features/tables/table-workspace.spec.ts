@@ -16,6 +16,7 @@ import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { AnalysisPanel } from './analysis-panel';
 import { TableStore } from './table-store';
 import { TableWorkspace } from './table-workspace';
+import { answerTableLoad, revisionFixture, tableFixture } from './testing/table-fixtures';
 
 // A 4 × 5 table: rows are MAP breakpoints, columns RPM breakpoints.
 const VALUES = [
@@ -24,28 +25,8 @@ const VALUES = [
   [60, 62, 64, 66, 68],
   [70, 72, 74, 76, 78],
 ];
-const TABLE = {
-  id: 't1',
-  vehicleId: 'v1',
-  name: 'Main VE',
-  rpmAxis: [1000, 2000, 3000, 4000, 5000],
-  mapAxisKpa: [30, 60, 90, 120],
-  headRevisionId: 'r1',
-  createdAt: '2026-01-01T00:00:00Z',
-};
-const REVISION = {
-  id: 'r1',
-  tableId: 't1',
-  parentId: null,
-  number: 1,
-  status: 'draft',
-  message: 'Initial table',
-  authorId: 'u1',
-  authorName: 'Demo Tuner',
-  analysisId: null,
-  createdAt: '2026-01-01T00:00:00Z',
-  values: VALUES,
-};
+const TABLE = tableFixture([1000, 2000, 3000, 4000, 5000], [30, 60, 90, 120]);
+const REVISION = revisionFixture(VALUES);
 
 function analysisCell(lambdaErrorPct: number | null): AnalysisCell {
   return {
@@ -140,14 +121,7 @@ describe('TableWorkspace', () => {
     fixture.componentRef.setInput('id', 't1');
     loader = TestbedHarnessEnvironment.loader(fixture);
     fixture.detectChanges();
-    http.expectOne('/api/tables/t1').flush(TABLE);
-    http.expectOne('/api/vehicles/v1').flush({ id: 'v1', label: 'Demo hatch' });
-    http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 1 });
-    http.expectOne('/api/revisions/r1').flush(REVISION);
-    http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
-    http
-      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
-      .flush({ items: [], total: 0 });
+    answerTableLoad(http, TABLE, REVISION);
     await settle();
     store = fixture.debugElement.injector.get(TableStore);
   });
