@@ -4,7 +4,7 @@ import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import type { ApplyAnalysisRequest } from '@shared/contracts/analyses';
 import { TableStore, locksStorageKey } from './table-store';
-import { answerTableLoad, revisionFixture, tableFixture } from './testing/table-fixtures';
+import { answerTableLoad, revisionFixture, tableFixture } from '../../../testing/table-fixtures';
 
 const TABLE = tableFixture([1000, 2000], [30, 100]);
 const REVISION = revisionFixture([

@@ -16,7 +16,7 @@ import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { AnalysisPanel } from './analysis-panel';
 import { TableStore } from './table-store';
 import { TableWorkspace } from './table-workspace';
-import { answerTableLoad, revisionFixture, tableFixture } from './testing/table-fixtures';
+import { answerTableLoad, revisionFixture, tableFixture } from '../../../testing/table-fixtures';
 
 // A 4 × 5 table: rows are MAP breakpoints, columns RPM breakpoints.
 const VALUES = [
