@@ -116,7 +116,8 @@ export function failUnfinishedLog(db: Database, target: ParseTarget, message: st
  * little-endian, deflated) and marks the log ready in one transaction, old channel rows removed
  * first — so a parse cut short leaves no half-stored log. A file that cannot be used, or whose
  * rows are mostly bad, marks the log failed with the code, message and row/column; a few bad rows
- * are dropped and counted in the parse report. Runs again safely on a log already done (skipped).
+ * (unreadable, implausible or with time going back) are dropped and counted in the parse report.
+ * Runs again safely on a log already done (skipped).
  */
 export async function parseStoredLog(
   deps: { db: Database; dataDir: string },
@@ -164,7 +165,9 @@ export async function parseStoredLog(
       target,
       {
         code: 'mostly_bad',
-        message: `Most rows could not be read: ${rowsRead - rowsKept} of ${rowsRead} dropped`,
+        message:
+          `Most rows could not be used: ${rowsRead - rowsKept} of ${rowsRead} dropped as ` +
+          'unreadable, implausible or out of time order',
         details: { rowsRead, rowsKept, row: first?.row, column: first?.column },
       },
       parseReport,

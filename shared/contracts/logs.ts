@@ -153,6 +153,8 @@ export const parseReportSchema = z.object({
       rowsKept: z.number(),
       rowsDroppedUnreadable: z.number(),
       rowsDroppedTimeBack: z.number(),
+      /** Rows with a value outside its channel's plausible range; absent from older reports. */
+      rowsDroppedImplausible: z.number().optional(),
       blankRows: z.number(),
       problemCount: z.number(),
       droppedFraction: z.number(),

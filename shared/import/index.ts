@@ -10,6 +10,7 @@ export * from './parse-csv-text';
 export * from './parse-decimal';
 export * from './parse-unit-text';
 export * from './plan-import';
+export * from './plausible-ranges';
 export * from './sniff-csv';
 export * from './split-csv-line';
 export * from './suggest-mapping';

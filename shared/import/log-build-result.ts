@@ -22,11 +22,16 @@ export interface ImportStats {
   readonly rowsDroppedUnreadable: number;
   /** Rows dropped because their time went back. */
   readonly rowsDroppedTimeBack: number;
+  /**
+   * Rows dropped because a value lay outside its channel's plausible range (`PLAUSIBLE_RANGES`);
+   * a row also unreadable counts as unreadable only.
+   */
+  readonly rowsDroppedImplausible: number;
   /** Blank lines among the data. */
   readonly blankRows: number;
   /** All problems found; `problems` keeps at most `maxProblems` of them. */
   readonly problemCount: number;
-  /** Dropped rows as a share of rows read (0–1). */
+  /** Dropped rows (unreadable, time going back, implausible) as a share of rows read (0–1). */
   readonly droppedFraction: number;
   /** Whether more than `mostlyBadFraction` of the rows were dropped: the file needs a look. */
   readonly isMostlyBad: boolean;

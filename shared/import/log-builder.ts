@@ -42,9 +42,10 @@ export interface LogBuilder {
 /**
  * Starts an import that applies `mapping` to CSV rows pushed in chunks of any size, converting
  * every mapped column to its channel's canonical unit (gauge boost + barometer → absolute MAP).
- * A row whose required channel cannot be read is dropped, one whose time goes back too; each
- * problem is recorded with its line and column. Optional channels that cannot be read become
- * NaN. Memory stays about 8 bytes × channels × rows: values go straight into typed arrays.
+ * A row whose required channel cannot be read is dropped, one with a value (of any channel)
+ * outside its channel's `PLAUSIBLE_RANGES` too, and one whose time goes back; each problem is
+ * recorded with its line and column. Optional channels that cannot be read become NaN. Memory
+ * stays about 8 bytes × channels × rows: values go straight into typed arrays.
  * Without `options.columns`, rows must be pushed from the top of the file so the builder meets
  * the header at `mapping.headerRow`.
  */
@@ -219,9 +220,15 @@ export function createLogBuilder(mapping: ColumnMapping, options: LogBuilderOpti
         throw new ImportError('no_header', 'the header row was never reached', { row: headerRow });
       if (rowsRead === 0) throw new ImportError('no_data', 'the file has no data rows');
       const length = reader.length;
+      const { droppedUnreadable, droppedTimeBack, droppedImplausible, problemCount } = reader;
       if (length === 0) {
         const first = reader.problems[0];
-        throw new ImportError('no_usable_rows', `none of the ${rowsRead} rows could be read`, {
+        const why =
+          droppedImplausible === 0
+            ? 'could be read'
+            : `could be used (${droppedUnreadable} unreadable, ` +
+              `${droppedImplausible} with implausible values)`;
+        throw new ImportError('no_usable_rows', `none of the ${rowsRead} rows ${why}`, {
           row: first?.row,
           column: first?.column,
         });
@@ -229,8 +236,7 @@ export function createLogBuilder(mapping: ColumnMapping, options: LogBuilderOpti
       const arrays = reader.takeArrays();
       const log: Partial<Record<Channel, Float64Array>> = {};
       outputs.forEach((channel, k) => (log[channel] = arrays[k]));
-      const { droppedUnreadable, droppedTimeBack, problemCount } = reader;
-      const droppedFraction = (droppedUnreadable + droppedTimeBack) / rowsRead;
+      const droppedFraction = (droppedUnreadable + droppedTimeBack + droppedImplausible) / rowsRead;
       return {
         log: { length, channels: log },
         problems: [...reader.problems],
@@ -239,6 +245,7 @@ export function createLogBuilder(mapping: ColumnMapping, options: LogBuilderOpti
           rowsKept: length,
           rowsDroppedUnreadable: droppedUnreadable,
           rowsDroppedTimeBack: droppedTimeBack,
+          rowsDroppedImplausible: droppedImplausible,
           blankRows,
           problemCount,
           droppedFraction,

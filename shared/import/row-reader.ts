@@ -5,6 +5,12 @@ import { GrowableColumns } from './growable-columns';
 import type { ImportProblem } from './log-build-result';
 import type { LogInput } from './log-inputs';
 import { parseDecimal } from './parse-decimal';
+import {
+  implausibleMessage,
+  PLAUSIBLE_RANGES,
+  plausibleBounds,
+  type PlausibleRange,
+} from './plausible-ranges';
 
 /** Options of {@link RowReader}. */
 export interface RowReaderOptions {
@@ -19,7 +25,8 @@ export interface RowReaderOptions {
 /**
  * The row half of the log builder: reads the mapped cells of one data row into `values` (one
  * slot per channel read, in canonical units), reports what cannot be read, folds gauge boost
- * into MAP, drops rows that are unreadable or whose time goes back, and keeps the rest.
+ * into MAP, reports values outside their channel's {@link PLAUSIBLE_RANGES}, drops rows that are
+ * unreadable, implausible or whose time goes back, and keeps the rest.
  */
 export class RowReader {
   /** The row being read, one slot per channel read (the order of `channels`). */
@@ -32,10 +39,19 @@ export class RowReader {
   droppedUnreadable = 0;
   /** Rows dropped because their time went back. */
   droppedTimeBack = 0;
+  /** Rows dropped because a value lay outside its channel's plausible range (none unreadable). */
+  droppedImplausible = 0;
   private readonly store: GrowableColumns;
   private readonly timeSlot: number;
   private readonly boostSlot: number;
   private readonly baroSlot: number;
+  /** The slots whose channel has a plausible range (boost: MAP's), and those ranges. */
+  private readonly rangeSlots: Int32Array;
+  private readonly slotRanges: readonly PlausibleRange[];
+  /** Per entry of `rangeSlots`: its `plausibleBounds`, in typed arrays for the row loop. */
+  private readonly lows: Float64Array;
+  private readonly highs: Float64Array;
+  private readonly isLowExclusive: Uint8Array;
   /** Whether each slot is a flag or needs a unit conversion: its plain numbers need a look. */
   private needsLook = new Uint8Array(0);
   /** The slots whose `needsLook` is 1, in order. */
@@ -54,6 +70,14 @@ export class RowReader {
     this.timeSlot = channels.indexOf('time');
     this.boostSlot = channels.indexOf('boost');
     this.baroSlot = channels.indexOf('baro');
+    // Boost is checked once the barometer is added, as the absolute MAP it becomes.
+    const ranges = channels.map((c) => PLAUSIBLE_RANGES[c === 'boost' ? 'map' : c]);
+    this.rangeSlots = Int32Array.from(channels.keys()).filter((k) => ranges[k] !== undefined);
+    this.slotRanges = ranges.filter((r): r is PlausibleRange => r !== undefined);
+    const bounds = this.slotRanges.map(plausibleBounds);
+    this.lows = Float64Array.from(bounds, (b) => b.low);
+    this.highs = Float64Array.from(bounds, (b) => b.high);
+    this.isLowExclusive = Uint8Array.from(bounds, (b) => (b.isLowExclusive ? 1 : 0));
   }
 
   /** How many rows were kept. */
@@ -140,9 +164,47 @@ export class RowReader {
     return !(input.isRequired && !Number.isFinite(value));
   }
 
-  /** Folds boost, checks time and keeps the row; counts it when it is dropped. */
+  /**
+   * Reports every value outside its channel's plausible range, skipping `skipSlot` (boost not
+   * folded into MAP yet); false when there was one.
+   */
+  private checkRanges(rowNumber: number, inputs: readonly LogInput[], skipSlot: number): boolean {
+    const { values, rangeSlots, lows, highs, isLowExclusive, boostSlot } = this;
+    let isRowPlausible = true;
+    for (let n = 0; n < rangeSlots.length; n++) {
+      const k = rangeSlots[n] as number;
+      const value = values[k] as number;
+      const low = lows[n] as number;
+      // As isPlausible, without a call per cell; NaN (a missing value) is never outside.
+      const isOutside =
+        value < low || value > (highs[n] as number) || (value === low && isLowExclusive[n] === 1);
+      if (!isOutside || k === skipSlot) continue;
+      isRowPlausible = false;
+      const range = this.slotRanges[n] as PlausibleRange;
+      const input = inputs[k] as LogInput;
+      // Folded boost is named as the MAP it became, and reported at the boost column.
+      const message =
+        k === boostSlot
+          ? implausibleMessage('map', value, range, 'boost + barometer')
+          : implausibleMessage(
+              input.channel,
+              value,
+              range,
+              input.isIdentity ? undefined : 'after unit conversion',
+            );
+      this.report(rowNumber, input, message);
+    }
+    return isRowPlausible;
+  }
+
+  /**
+   * Folds boost, checks the ranges and time, and keeps the row; counts it when it is dropped. A
+   * row both unreadable and implausible has each problem reported but counts as unreadable.
+   */
   private commit(rowNumber: number, inputs: readonly LogInput[], isReadable: boolean): void {
     const { values, boostSlot, baroSlot, timeSlot } = this;
+    // Boost only becomes MAP when the row is readable; before that it is not checked.
+    const unfoldedSlot = isReadable ? -1 : boostSlot;
     if (isReadable && boostSlot >= 0) {
       const baro =
         baroSlot >= 0 && Number.isFinite(values[baroSlot])
@@ -154,8 +216,14 @@ export class RowReader {
         isReadable = false;
       }
     }
+    // Checked on unreadable rows too, so that every bad cell of a row is reported at once.
+    const isRowPlausible = this.checkRanges(rowNumber, inputs, unfoldedSlot);
     if (!isReadable) {
       this.droppedUnreadable++;
+      return;
+    }
+    if (!isRowPlausible) {
+      this.droppedImplausible++;
       return;
     }
     const time = values[timeSlot] as number;

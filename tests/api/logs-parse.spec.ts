@@ -32,6 +32,17 @@ function damageRpm(text: string, isBad: (dataIndex: number) => boolean): string 
     .join('\n');
 }
 
+/** `text` with the cells of data rows set: each change is [data row index, cell index, text]. */
+function setCells(text: string, changes: readonly [number, number, string][]): string {
+  const lines = text.split('\n');
+  for (const [dataIndex, cell, value] of changes) {
+    const cells = (lines[dataIndex + 1] as string).split(',');
+    cells[cell] = value;
+    lines[dataIndex + 1] = cells.join(',');
+  }
+  return lines.join('\n');
+}
+
 describe('log parsing and reads', () => {
   let t: TestApp;
   let shop: TestShop;
@@ -76,6 +87,46 @@ describe('log parsing and reads', () => {
           message: 'not a number: "n/a"',
         })),
       );
+    });
+
+    it('When rows hold implausible values, then the log is ready without them and they are listed', async () => {
+      // RPM 99 999 999 on data row 40, MAP 1e30 kPa on data row 90 (columns 1 and 2 of snake).
+      const text = setCells(simulatedCsv('snake', 57), [
+        [40, 1, '99999999'],
+        [90, 2, '1e30'],
+      ]);
+      const res = await postLog(tuner, vehicleId, text, { mapping: SNAKE_MAPPING });
+      expect(res.status).toBe(202);
+      const log = await waitForLog(tuner, res.body.id);
+      expect(log.status).toBe('ready');
+      const rows = text.split('\n').filter((l) => l !== '').length - 1;
+      expect(log.sampleCount).toBe(rows - 2);
+      expect(log.parseReport?.stats).toMatchObject({
+        rowsRead: rows,
+        rowsKept: rows - 2,
+        rowsDroppedUnreadable: 0,
+        rowsDroppedImplausible: 2,
+        problemCount: 2,
+        isMostlyBad: false,
+      });
+      // Lines count from 0 with the header on line 0: data row i is line i + 1.
+      expect(log.parseReport?.problems).toEqual([
+        {
+          row: 41,
+          column: 'engine_rpm',
+          channel: 'rpm',
+          message: 'rpm 99999999 is outside the plausible range 0 to 25000 rpm',
+        },
+        {
+          row: 91,
+          column: 'map_kpa',
+          channel: 'map',
+          message: 'map 1e+30 is outside the plausible range 0 to 1000 kPa',
+        },
+      ]);
+      // What the charts and the analysis read stays physical.
+      expect(log.channelSummary?.rpm?.max).toBeLessThan(10_000);
+      expect(log.channelSummary?.map?.max).toBeLessThan(300);
     });
 
     it('When most rows are bad, then the log fails with the code, counts and first row/column', async () => {
