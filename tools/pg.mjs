@@ -1,7 +1,8 @@
 // A project-local PostgreSQL cluster on loopback: find the binaries, create, start, stop.
 import { spawnSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
 import { chownSync, existsSync, mkdirSync, readdirSync, chmodSync } from 'node:fs';
-import { join } from 'node:path';
+import { basename, dirname, join } from 'node:path';
 import { IS_ROOT, ensureDebianPackage, say } from './setup.mjs';
 
 /** The folder of the newest installed PostgreSQL server binaries, or null. */
@@ -28,6 +29,50 @@ function postgresIds() {
   return { uid: Number(uid.stdout.trim()), gid: Number(gid.stdout.trim()) };
 }
 
+/**
+ * Where root keeps a cluster whose data folder the postgres user cannot reach (a checkout in
+ * `/root`, mode 700): a folder of its own under the system's state directory.
+ */
+export const SYSTEM_CLUSTERS_DIR =
+  process.env.CELLSMITH_SYSTEM_CLUSTERS_DIR || '/var/lib/cellsmith';
+
+/** Whether the postgres user can enter `dir` (every folder above it searchable). */
+function postgresCanEnter(dir) {
+  if (!existsSync(dir)) return false;
+  return spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', dir]).status === 0;
+}
+
+/**
+ * The cluster folder kept outside `dataDir` for this data folder: named after the folder's last
+ * part (ASCII only, so spaces and accents in the path never reach PostgreSQL's own files) and a
+ * hash of its whole path, so two checkouts never share one.
+ */
+export function systemClusterDir(dataDir) {
+  const hash = createHash('sha256').update(dataDir).digest('hex').slice(0, 12);
+  const named = basename(dataDir) === '.data' ? basename(dirname(dataDir)) : basename(dataDir);
+  const project = named
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .replace(/[^A-Za-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 40)
+    .toLowerCase();
+  return join(SYSTEM_CLUSTERS_DIR, `pg-${project || 'data'}-${hash}`);
+}
+
+/**
+ * The folder of the cluster that belongs to `dataDir`: `<dataDir>/pg`, except when root runs us
+ * and the postgres user cannot enter `dataDir` (PostgreSQL refuses to run as root, so it runs as
+ * postgres). Then the cluster lives in `systemClusterDir(dataDir)` and only the cluster moves:
+ * uploads, mail and the session secret stay in `dataDir`, and no folder of the user's is opened
+ * up. The answer depends only on the path and its permissions, so `db:stop` finds it again.
+ */
+export function clusterDirFor(dataDir) {
+  const local = join(dataDir, 'pg');
+  if (!IS_ROOT || postgresCanEnter(dataDir)) return local;
+  return systemClusterDir(dataDir);
+}
+
 /** Runs a PostgreSQL binary, as the postgres user when we are root (initdb refuses root). */
 function pgRun(bin, tool, args, { quiet = false } = {}) {
   const command = IS_ROOT ? 'runuser' : join(bin, tool);
@@ -49,6 +94,10 @@ function check(result, what) {
 /** Creates the cluster in `dir` unless one is there already. */
 export function initCluster(bin, dir) {
   if (existsSync(join(dir, 'PG_VERSION'))) return false;
+  if (IS_ROOT && dir.startsWith(SYSTEM_CLUSTERS_DIR)) {
+    mkdirSync(SYSTEM_CLUSTERS_DIR, { recursive: true, mode: 0o755 });
+    chmodSync(SYSTEM_CLUSTERS_DIR, 0o755);
+  }
   mkdirSync(dir, { recursive: true, mode: 0o700 });
   if (IS_ROOT) {
     const { uid, gid } = postgresIds();

@@ -5,6 +5,7 @@ import { chmodSync, mkdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { ensureClientBuild } from './client-build.mjs';
 import {
+  clusterDirFor,
   databaseUrl,
   ensureDatabase,
   ensurePostgres,
@@ -19,7 +20,7 @@ const host = process.env.HOST || '127.0.0.1';
 const port = Number(process.env.PORT || 4310);
 const pgPort = Number(process.env.PGPORT || 54329);
 const dataDir = resolve(ROOT, process.env.CELLSMITH_DATA_DIR || '.data');
-const clusterDir = join(dataDir, 'pg');
+let clusterDir = join(dataDir, 'pg');
 
 let bin = null;
 let startedCluster = false;
@@ -79,6 +80,14 @@ async function main() {
   bin = ensurePostgres();
   mkdirSync(dataDir, { recursive: true });
   if (IS_ROOT) chmodSync(dataDir, 0o755);
+  clusterDir = clusterDirFor(dataDir);
+  if (clusterDir !== join(dataDir, 'pg')) {
+    say(
+      `the postgres user cannot enter ${dataDir}; the database cluster is kept in ` +
+        `${clusterDir} instead (uploads, mail and the session secret stay in the data folder)`,
+    );
+  }
+  say(`database cluster: ${clusterDir}`);
   initCluster(bin, clusterDir);
   if (isClusterRunning(bin, clusterDir)) {
     say(`PostgreSQL is already running in ${clusterDir}; using it (it will be left running)`);
