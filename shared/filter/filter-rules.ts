@@ -14,12 +14,20 @@ export interface WarmUpRule {
 
 /**
  * Leave out fuel cut and the time the sensor needs to come back from free air. A sample is in
- * fuel cut when the `fuelCut` flag is 1, or when measured lambda is at or above
- * `leanLimitLambda` (the lean end a wideband reads with no fuel); either channel may be absent.
+ * fuel cut when the `fuelCut` flag is 1; or when measured lambda is at or above
+ * `leanLimitLambda`; or when it is at the lean ceiling the log's own wideband reports on fresh
+ * air (found from a plateau of its leanest readings on a closed throttle, since controllers
+ * report different ceilings, λ 1.36 on some; see `detectLambdaCeiling`) or climbing fast into it;
+ * or, with throttle and engine speed logged, when lambda climbs lean on a closed throttle above
+ * idle (the overrun going into cut; see `markOverrunEntry`). Any of these channels may be
+ * absent. The ceiling found is shown in the funnel (`FunnelStep.detail.ceilingLambda`).
  */
 export interface FuelCutRule {
   readonly kind: 'fuelCut';
-  /** Measured lambda at or above which the sample counts as fuel cut. Default 1.6. */
+  /**
+   * Measured lambda at or above which the sample counts as fuel cut, whatever ceiling the log
+   * shows. Default 1.6.
+   */
   readonly leanLimitLambda?: number;
   /** Seconds after the last fuel-cut sample also left out. Default 1. */
   readonly settleS?: number;
@@ -124,6 +132,12 @@ export interface FilterOptions {
   readonly ratePolyOrder?: number;
 }
 
+/** What a rule found in the log, beside its counts (each field only where it applies). */
+export interface FunnelDetail {
+  /** `fuelCut`: the lean ceiling the log's wideband reports, lambda. */
+  readonly ceilingLambda?: number;
+}
+
 /** One line of the funnel: what a rule did to the samples still in. */
 export interface FunnelStep {
   /** The rule's kind. */
@@ -138,6 +152,8 @@ export interface FunnelStep {
   readonly removed: number;
   /** Samples still kept after this rule. */
   readonly remaining: number;
+  /** What the rule found in the log (the fuel-cut rule: the ceiling); absent when nothing. */
+  readonly detail?: FunnelDetail;
 }
 
 /** What `filterSamples` returns. */

@@ -3,17 +3,23 @@ import {
   type FilterOptions,
   type FilterResult,
   type FilterRule,
+  type FunnelDetail,
   type FunnelStep,
 } from './filter-rules';
+import { detectLambdaCeiling, markClimbToLean, markOverrunEntry } from './lambda-ceiling';
+import { medianTimeStep } from './order-statistics';
 import { compileSampleExpression, evaluateSampleExpression } from './sample-expression';
 import { savitzkyGolaySeries } from './savitzky-golay-series';
 
 /** Slack on settle-time comparisons, seconds (see `withSettle`). */
 const SETTLE_SLACK_S = 1e-9;
 
-/** What one rule decided: the samples it removes (over the whole log), or why it was skipped. */
+/**
+ * What one rule decided: the samples it removes (over the whole log) and what it found in the
+ * log, or why it was skipped.
+ */
 type RuleOutcome = { readonly label: string } & (
-  { readonly removes: Uint8Array } | { readonly skipped: string }
+  { readonly removes: Uint8Array; readonly detail?: FunnelDetail } | { readonly skipped: string }
 );
 
 /** Shared per-call state: the log, its time and the rates already taken. */
@@ -88,54 +94,20 @@ export function filterSamples(
       }
     }
     remaining -= removed;
-    return { rule: rule.kind, label: outcome.label, status: 'applied', removed, remaining };
+    const step = { rule: rule.kind, label: outcome.label, status: 'applied' as const };
+    return outcome.detail
+      ? { ...step, removed, remaining, detail: outcome.detail }
+      : { ...step, removed, remaining };
   });
   return { keep, total: log.length, funnel };
 }
 
 /** The odd sample count nearest to `windowS` at the log's median time step (at least 3). */
 function rateWindowSamples(time: Float64Array, windowS: number): number {
-  const steps = new Float64Array(Math.max(0, time.length - 1));
-  let count = 0;
-  for (let i = 1; i < time.length; i++) {
-    const d = time[i] - time[i - 1];
-    if (d > 0) steps[count++] = d;
-  }
-  if (count === 0) return 3;
-  const median = kthSmallest(steps.subarray(0, count), count >> 1);
+  const median = medianTimeStep(time);
+  if (Number.isNaN(median)) return 3;
   const samples = Math.round(windowS / median) + 1;
   return Math.max(3, samples % 2 === 1 ? samples : samples + 1);
-}
-
-/**
- * The k-th smallest of `values` (from 0), as `sorted[k]` would be, found by selection in O(n)
- * rather than a sort: a million steps sort in about 100 ms. Reorders `values`, which must hold
- * no NaN.
- */
-function kthSmallest(values: Float64Array, k: number): number {
-  let lo = 0;
-  let hi = values.length - 1;
-  while (lo < hi) {
-    // Hoare partition around the middle value; equal values may land on either side.
-    const pivot = values[(lo + hi) >> 1];
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while (values[i] < pivot) i++;
-      while (values[j] > pivot) j--;
-      if (i <= j) {
-        const t = values[i];
-        values[i] = values[j];
-        values[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else return values[k];
-  }
-  return values[k];
 }
 
 /** Evaluates one rule over the whole log. */
@@ -155,16 +127,41 @@ function ruleOutcome(rule: FilterRule, index: number, context: RuleContext): Rul
     case 'fuelCut': {
       const lean = positiveOption(rule.leanLimitLambda, 1.6, `${where}.leanLimitLambda`);
       const settleS = settleOption(rule.settleS, 1, `${where}.settleS`);
-      const label = `fuel cut (flag, or lambda ≥ ${lean}) and ${settleS} s after`;
       const flag = channel('fuelCut');
       const lambda = channel('lambda');
+      // The ceiling this log's wideband reports on fresh air (controllers differ: 1.36, 1.6…),
+      // the sensor's rise into it, and the climb into cut on a closed throttle, so a cut shows
+      // without the flag and with a ceiling under `lean`.
+      const ceiling = lambda ? detectLambdaCeiling(log) : null;
+      const intoCeiling = ceiling
+        ? markClimbToLean(log, context.rateOf('lambda'), ceiling.fromLambda)
+        : null;
+      const overrun =
+        lambda && channel('tps') && channel('rpm')
+          ? markOverrunEntry(log, context.rateOf('lambda'))
+          : null;
+      const found = [
+        'flag',
+        `lambda ≥ ${lean}`,
+        ...(ceiling ? [`lambda at the log's ceiling ${roundLambda(ceiling.lambda)}`] : []),
+        ...(overrun ? ['closed-throttle overrun'] : []),
+      ];
+      const listed = `${found.slice(0, -1).join(', ')}, or ${found[found.length - 1]}`;
+      const label = `fuel cut (${listed}) and ${settleS} s after`;
       if (!flag && !lambda) return { label, skipped: 'the log has no "fuelCut" or "lambda"' };
+      const ceilingFrom = ceiling ? ceiling.fromLambda : Number.POSITIVE_INFINITY;
       const inCut = mark(
         log.length,
         (i) =>
-          (flag !== undefined && flag[i] >= 0.5) || (lambda !== undefined && lambda[i] >= lean),
+          (flag !== undefined && flag[i] >= 0.5) ||
+          (lambda !== undefined && (lambda[i] >= lean || lambda[i] >= ceilingFrom)) ||
+          (intoCeiling !== null && intoCeiling[i] === 1) ||
+          (overrun !== null && overrun[i] === 1),
       );
-      return { label, removes: withSettle(inCut, time, settleS) };
+      const removes = withSettle(inCut, time, settleS);
+      return ceiling
+        ? { label, removes, detail: { ceilingLambda: ceiling.lambda } }
+        : { label, removes };
     }
     case 'tipIn': {
       const limit = positiveOption(rule.maxTpsRatePctPerS, 10, `${where}.maxTpsRatePctPerS`);
@@ -255,6 +252,11 @@ function withSettle(marked: Uint8Array, time: Float64Array, settleS: number): Ui
     out[i] = marked[i] === 1 || time[i] - lastMarkedS <= settleS + SETTLE_SLACK_S ? 1 : 0;
   }
   return out;
+}
+
+/** Lambda rounded to 0.01 for a label (1.36, 1.6). */
+function roundLambda(value: number): number {
+  return Math.round(value * 100) / 100;
 }
 
 /** An option's value or its default, required finite. */

@@ -81,6 +81,22 @@ describe('simulateLog: the physics shows in the log', () => {
     for (const s of settledCut) expect(s.lambdaMeasured).toBeGreaterThan(1.5);
   });
 
+  it('When the wideband tops out at 1.36, then cuts read 1.36 and no reading is leaner', () => {
+    const low = [...simulateSamples({ kind: 'road', seed: 7, wideband: { maxLambda: 1.36 } })];
+    expect(Math.max(...low.map((s) => s.lambdaMeasured))).toBe(1.36);
+    // The ceiling changes only the reading: the drive and the cuts are the default log's.
+    expect(low.map((s) => s.fuelCut)).toEqual(road.map((s) => s.fuelCut));
+    const settledCut = low.filter((s, i) => s.fuelCut === 1 && low[i - 30]?.fuelCut === 1);
+    expect(settledCut.length).toBeGreaterThan(0);
+    for (const s of settledCut) expect(s.lambdaMeasured).toBeGreaterThan(1.36 * 0.98);
+  });
+
+  it('When the ceiling is given as the default 1.6, then the log is the default log', () => {
+    const a = simulateLog({ kind: 'road', seed: 4, durationS: 120 });
+    const b = simulateLog({ kind: 'road', seed: 4, durationS: 120, wideband: { maxLambda: 1.6 } });
+    for (const channel of CHANNELS) expect(b.channels[channel]).toEqual(a.channels[channel]);
+  });
+
   it('When fuel is cut, then the reading rises only after the transport delay', () => {
     // computed from the formulas: τ = τ₀ + K/ṁ (reference.md §6) [C]
     let onsets = 0;

@@ -57,7 +57,10 @@ export interface SimulationOptions {
   holds?: readonly DynoHold[];
   /** Dyno: the gear, 1-based; default the gear closest to 1:1. */
   dynoGear?: number;
-  /** Wideband delay, lag and noise settings. */
+  /**
+   * Wideband delay, lag, noise and range settings; `maxLambda` is the ceiling the sensor reports
+   * on fuel cut (default 1.6).
+   */
   wideband?: WidebandOptions;
 }
 

@@ -1,5 +1,5 @@
 import { createSeededRandom } from './seeded-random';
-import { createSimWideband, transportDelayS } from './wideband-model';
+import { createSimWideband, transportDelayS, type WidebandOptions } from './wideband-model';
 
 describe('transportDelayS', () => {
   it('When idling (3.2 g/s), then the total is within 0.3–0.5 s; at high load (50 g/s), 0.1–0.2 s', () => {
@@ -39,5 +39,27 @@ describe('createSimWideband', () => {
     for (let i = 0; i < 100; i++)
       reading = sensor.read(i * 0.05, 0.05, Number.POSITIVE_INFINITY, 2);
     expect(reading).toBe(1.6);
+  });
+
+  it('When its ceiling is set to 1.36, then fresh air reads 1.36 and noise never reads leaner', () => {
+    const sensor = createSimWideband({ maxLambda: 1.36 }, createSeededRandom(2));
+    const readings: number[] = [];
+    for (let i = 0; i < 400; i++)
+      readings.push(sensor.read(i * 0.05, 0.05, Number.POSITIVE_INFINITY, 2));
+    const settled = readings.slice(100);
+    expect(Math.max(...settled)).toBe(1.36);
+    // Noise of 0.4 % (1σ) pulls some readings under the ceiling, none by more than 2 % (5σ).
+    expect(settled.filter((v) => v === 1.36).length).toBeGreaterThan(100);
+    expect(Math.min(...settled)).toBeGreaterThan(1.36 * 0.98);
+  });
+
+  it.each<[string, WidebandOptions]>([
+    ['a ceiling below the richest reading', { maxLambda: 0.5 }],
+    ['a ceiling that is not a number', { maxLambda: Number.NaN }],
+    ['a richest reading of 0', { minLambda: 0 }],
+  ])('When the range is impossible (%s), then it throws', (_name, options) => {
+    expect(() => createSimWideband(options, createSeededRandom(1))).toThrow(
+      /minLambda < maxLambda/,
+    );
   });
 });

@@ -2,7 +2,8 @@
  * The wideband lambda sensor as the log sees it: exhaust transport delay τ = τ₀ + K/ṁ_air
  * (reference.md §6, simplified model), a first-order sensor lag (UEGO time constant 50–100 ms:
  * Regitz & Collings 2008, abstract), measurement noise, and the sensor's range: on fuel cut
- * the sensor sees fresh air and pins at its lean limit.
+ * the sensor sees fresh air and pins at its lean limit. That limit is the ceiling the controller
+ * reports, and controllers differ (λ 1.6 on some, about 1.36 on others), so it is a setting.
  */
 import { type SeededRandom } from './seeded-random';
 
@@ -18,7 +19,10 @@ export interface WidebandOptions {
   noiseRel?: number;
   /** Richest reading, lambda; default 0.6. */
   minLambda?: number;
-  /** Leanest reading (fresh air), lambda; default 1.6. */
+  /**
+   * Leanest reading (fresh air): the ceiling the controller reports on fuel cut, lambda; default
+   * 1.6. Controllers differ; 1.25–1.6 is the range worth testing.
+   */
   maxLambda?: number;
 }
 
@@ -44,6 +48,9 @@ export function createSimWideband(options: WidebandOptions, random: SeededRandom
   const noiseRel = options.noiseRel ?? 0.004;
   const minLambda = options.minLambda ?? 0.6;
   const maxLambda = options.maxLambda ?? 1.6;
+  if (!(minLambda > 0) || !(maxLambda > minLambda) || !Number.isFinite(maxLambda)) {
+    throw new Error('createSimWideband: need 0 < minLambda < maxLambda, both finite');
+  }
   // A ring buffer of the exhaust lambda history, long enough for the largest delay.
   let capacity = 0;
   let history = new Float64Array(0);
