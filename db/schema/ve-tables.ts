@@ -73,6 +73,11 @@ export const revisions = pgTable(
       .references(() => users.id),
     /** The analysis this revision was applied from, if any. */
     analysisId: uuid('analysis_id'),
+    /**
+     * How an applied revision was made (step, smoothing, fill, the fuel-safety guard or its
+     * explicit absence, the cells held for data); null for a revision saved from the grid.
+     */
+    applied: jsonb('applied').$type<Record<string, unknown>>(),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (table) => [

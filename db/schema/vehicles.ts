@@ -27,6 +27,10 @@ export const vehicles = pgTable(
     tireDiameterMm: doublePrecision('tire_diameter_mm').notNull(),
     gearRatios: doublePrecision('gear_ratios').array().notNull(),
     finalDrive: doublePrecision('final_drive').notNull(),
+    /** Load line of the fuel-safety guard, % of the barometric pressure seen in the logs. */
+    loadLinePercentOfBaro: doublePrecision('load_line_percent_of_baro').notNull().default(90),
+    /** How far a guess may lean a cell under load that no log measured, %. */
+    leanAllowancePercent: doublePrecision('lean_allowance_percent').notNull().default(1),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },

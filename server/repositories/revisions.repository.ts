@@ -1,6 +1,12 @@
 import { and, asc, eq, max } from 'drizzle-orm';
 import { revisions, users } from '../../db/schema';
-import type { Revision, RevisionStatus, RevisionSummary } from '../../shared/contracts/tables';
+import {
+  appliedRecordSchema,
+  type AppliedRecord,
+  type Revision,
+  type RevisionStatus,
+  type RevisionSummary,
+} from '../../shared/contracts/tables';
 import type { Executor } from '../db';
 
 /** What a new revision is made of. */
@@ -19,6 +25,8 @@ export interface NewRevisionFields {
   authorId: string;
   /** The analysis it was applied from, if any. */
   analysisId?: string | null;
+  /** How it was applied, if it was. */
+  applied?: AppliedRecord | null;
 }
 
 const summaryColumns = {
@@ -72,12 +80,15 @@ export async function findRevision(
   id: string,
 ): Promise<Revision | null> {
   const [row] = await db
-    .select({ ...summaryColumns, values: revisions.values })
+    .select({ ...summaryColumns, values: revisions.values, applied: revisions.applied })
     .from(revisions)
     .innerJoin(users, eq(users.id, revisions.authorId))
     .where(and(eq(revisions.shopId, shopId), eq(revisions.id, id)))
     .limit(1);
-  return row ? { ...toSummary(row), values: row.values } : null;
+  if (!row) return null;
+  // Parsed once here, so a stored record that drifted from the contract fails loudly.
+  const applied = row.applied === null ? null : appliedRecordSchema.parse(row.applied);
+  return { ...toSummary(row), values: row.values, applied };
 }
 
 /** The revisions of a shop's table without their values, by number ascending. */

@@ -4,6 +4,7 @@ import type {
   ListVehiclesQuery,
   Vehicle,
   VehicleEngine,
+  VehicleFuelSafety,
   VehicleGearing,
 } from '../../shared/contracts/vehicles';
 import type { Fuel } from '../../shared/units/fuels';
@@ -19,6 +20,8 @@ export interface VehicleFields {
   engine: VehicleEngine;
   /** Gearing facts. */
   gearing: VehicleGearing;
+  /** The fuel-safety guard's settings. */
+  fuelSafety: VehicleFuelSafety;
 }
 
 function toVehicle(row: VehicleRow): Vehicle {
@@ -39,6 +42,10 @@ function toVehicle(row: VehicleRow): Vehicle {
       gearRatios: row.gearRatios,
       finalDrive: row.finalDrive,
     },
+    fuelSafety: {
+      loadLinePercentOfBaro: row.loadLinePercentOfBaro,
+      leanAllowancePercent: row.leanAllowancePercent,
+    },
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
   };
@@ -56,6 +63,8 @@ function toColumns(fields: VehicleFields) {
     tireDiameterMm: fields.gearing.tireDiameterMm,
     gearRatios: fields.gearing.gearRatios,
     finalDrive: fields.gearing.finalDrive,
+    loadLinePercentOfBaro: fields.fuelSafety.loadLinePercentOfBaro,
+    leanAllowancePercent: fields.fuelSafety.leanAllowancePercent,
   };
 }
 

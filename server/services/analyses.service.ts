@@ -5,13 +5,16 @@ import type {
   CreateAnalysisRequest,
   ListAnalysesQuery,
 } from '../../shared/contracts/analyses';
-import type { Revision } from '../../shared/contracts/tables';
+import type { AppliedGuard, AppliedRecord, Revision } from '../../shared/contracts/tables';
+import type { Vehicle } from '../../shared/contracts/vehicles';
 import type { VeTable } from '../../shared/core/table';
+import { STANDARD_BARO_KPA } from '../../shared/correct';
 import {
   analyseLogs,
   applyAnalysis,
   type AnalysisLog,
   type AnalysisSettings,
+  type BaroEstimate,
 } from '../../shared/pipeline';
 import type { Database } from '../db';
 import { AppError, conflict, notFound } from '../errors/app-error';
@@ -53,10 +56,43 @@ export interface AnalysisResource {
   filterReport: Record<string, unknown>;
   /** Cells measured leaner than commanded under load, with their size. */
   leanFlags: unknown[];
+  /**
+   * The fuel-safety guard an apply of this analysis runs with by default: the vehicle's load line
+   * and allowance over the barometric pressure the logs were recorded at.
+   */
+  guard: AppliedGuard;
   createdAt: string;
 }
 
-function toResource(row: AnalysisRow): AnalysisResource {
+/** The barometric pressure an analysis stored; analyses from before it was kept assume ISA. */
+function storedBaro(row: AnalysisRow): BaroEstimate {
+  const baro = (row.filterReport as { baro?: BaroEstimate }).baro;
+  return baro && baro.kpa > 0 ? baro : { kpa: STANDARD_BARO_KPA, source: 'assumed' };
+}
+
+/** The guard of an analysis on a vehicle: the vehicle's settings over the logs' pressure. */
+function analysisGuard(row: AnalysisRow, vehicle: Vehicle): AppliedGuard {
+  const baro = storedBaro(row);
+  const { loadLinePercentOfBaro, leanAllowancePercent } = vehicle.fuelSafety;
+  return {
+    loadLineKpa: Math.round(baro.kpa * loadLinePercentOfBaro) / 100,
+    loadLinePercentOfBaro,
+    leanAllowancePercent,
+    baroKpa: baro.kpa,
+    baroSource: baro.source,
+  };
+}
+
+/** The vehicle an analysis's table belongs to. */
+async function vehicleOfTable(db: Database, shopId: string, tableId: string): Promise<Vehicle> {
+  const table = await findTable(db, shopId, tableId);
+  if (!table) throw notFound('Table');
+  const vehicle = await findVehicle(db, shopId, table.vehicleId);
+  if (!vehicle) throw notFound('Vehicle');
+  return vehicle;
+}
+
+function toResource(row: AnalysisRow, vehicle: Vehicle): AnalysisResource {
   const cells = row.cells as unknown as StoredCells;
   const proposal = row.proposal as unknown as StoredProposal;
   return {
@@ -69,6 +105,7 @@ function toResource(row: AnalysisRow): AnalysisResource {
     proposal: proposal.values,
     filterReport: row.filterReport,
     leanFlags: row.leanFlags,
+    guard: analysisGuard(row, vehicle),
     createdAt: row.createdAt.toISOString(),
   };
 }
@@ -154,6 +191,7 @@ export async function createAnalysis(
     })),
     samplesUsed: analysis.cells.samplesUsed,
     cellsTrusted: analysis.proposal.counts.trusted,
+    baro: analysis.baro,
   };
   const row = await insertAnalysis(db, {
     shopId: actor.shopId,
@@ -175,7 +213,7 @@ export async function createAnalysis(
     targetId: row.id,
     details: { tableId: table.id, baseRevisionId: base.id, logIds },
   });
-  return toResource(row);
+  return toResource(row, vehicle);
 }
 
 /** One analysis of the actor's shop; 404 when it is not there. */
@@ -186,7 +224,7 @@ export async function getAnalysis(
 ): Promise<AnalysisResource> {
   const row = await findAnalysis(db, actor.shopId, id);
   if (!row) throw notFound('Analysis');
-  return toResource(row);
+  return toResource(row, await vehicleOfTable(db, actor.shopId, row.tableId));
 }
 
 /** A page of a table's analyses, newest first, without their grids; 404 without the table. */
@@ -229,7 +267,9 @@ function roundVe(values: readonly (readonly number[])[]): number[][] {
 
 /**
  * Applies an analysis as a new draft revision whose parent is the analysis's base: the step
- * fraction, fill, smoothing, locked cells and an optional selection decide each cell.
+ * fraction, fill, smoothing, locked cells and an optional selection decide each cell, and the
+ * fuel-safety guard (on unless the body says `guard: false`) holds guessed cells under load that
+ * would go lean. The revision records how it was made, the held cells among it.
  */
 export async function applyStoredAnalysis(
   db: Database,
@@ -242,12 +282,16 @@ export async function applyStoredAnalysis(
   const base = await findRevision(db, actor.shopId, row.baseRevisionId);
   if (!base) throw notFound('Base revision');
   const baseTable = await revisionTable(db, actor.shopId, base);
+  const vehicle = await vehicleOfTable(db, actor.shopId, row.tableId);
   const rows = baseTable.mapAxisKpa.length;
   const cols = baseTable.rpmAxis.length;
   const settings = row.settings as AnalysisSettings;
+  const guard = body.guard === false ? null : analysisGuard(row, vehicle);
+  const step = body.stepFraction ?? 0.5;
+  const smooth = body.smooth ?? DEFAULT_APPLY_SMOOTH;
   const applied = applyAnalysis(baseTable, storedEvidence(row.cells as unknown as StoredCells), {
-    stepFraction: body.stepFraction,
-    smooth: body.smooth,
+    stepFraction: step,
+    smooth,
     fill: body.fill,
     maxReach: body.maxReach,
     locked: cellMask(body.lockedCells, rows, cols, 'lockedCells'),
@@ -255,8 +299,19 @@ export async function applyStoredAnalysis(
     maxStepPercent: settings.maxStepPercent,
     minWeight: settings.minWeight,
     maxSpread: settings.maxSpread,
+    guard: guard && {
+      loadLineKpa: guard.loadLineKpa,
+      leanAllowance: guard.leanAllowancePercent / 100,
+    },
   });
-  const step = body.stepFraction ?? 0.5;
+  const record = appliedRecord(row.id, applied, cols, {
+    stepFraction: step,
+    smooth,
+    fill: body.fill !== false,
+    maxReach: body.maxReach ?? null,
+    selectedCells: body.onlyCells?.length ?? null,
+    guard,
+  });
   return addRevision(
     db,
     actor,
@@ -264,11 +319,44 @@ export async function applyStoredAnalysis(
     {
       parentId: base.id,
       values: roundVe(applied.table.values),
-      message:
-        body.message ??
-        `Applied analysis of ${row.logIds.length} log(s) at step ${step}` +
-          (body.onlyCells ? ` to ${body.onlyCells.length} selected cell(s)` : ''),
+      message: body.message ?? applyMessage(row.logIds.length, step, body, applied.heldCount),
     },
-    { analysisId: row.id },
+    { analysisId: row.id, applied: record },
   );
+}
+
+/** Smoothing strength of an apply that does not name one (as `applyAnalysis`). */
+const DEFAULT_APPLY_SMOOTH = 0.3;
+
+/** The default message of an applied revision: what, how far, and what the guard did. */
+function applyMessage(
+  logCount: number,
+  step: number,
+  body: ApplyAnalysisRequest,
+  heldCount: number,
+): string {
+  const parts = [`Applied analysis of ${logCount} log(s) at step ${step}`];
+  if (body.onlyCells) parts.push(` to ${body.onlyCells.length} selected cell(s)`);
+  if (body.guard === false) parts.push('; fuel-safety guard under load turned OFF by the user');
+  else if (heldCount > 0) parts.push(`; ${heldCount} cell(s) held under load: need data`);
+  return parts.join('');
+}
+
+/** The record of how an apply made its revision. */
+function appliedRecord(
+  analysisId: string,
+  applied: ReturnType<typeof applyAnalysis>,
+  cols: number,
+  how: Omit<AppliedRecord, 'analysisId' | 'heldCells' | 'counts' | 'origin'>,
+): AppliedRecord {
+  const counts = { measured: 0, filled: 0, held: 0, locked: 0, unchanged: 0 };
+  const heldCells: [number, number][] = [];
+  const origin: AppliedRecord['origin'] = [];
+  applied.origin.forEach((kind, k) => {
+    counts[kind]++;
+    const r = Math.floor(k / cols);
+    if (kind === 'held') heldCells.push([r, k - r * cols]);
+    (origin[r] ??= []).push(kind);
+  });
+  return { analysisId, ...how, heldCells, counts, origin };
 }

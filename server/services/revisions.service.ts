@@ -1,5 +1,6 @@
 import { compareTables } from '../../shared/compare';
 import type {
+  AppliedRecord,
   CompareRevisionsQuery,
   CreateRevisionRequest,
   ExportRevisionQuery,
@@ -53,7 +54,7 @@ export function addRevision(
   actor: SessionUserRecord,
   tableId: string,
   body: CreateRevisionRequest,
-  options: { analysisId?: string } = {},
+  options: { analysisId?: string; applied?: AppliedRecord } = {},
 ): Promise<Revision> {
   return db.transaction(async (tx) => {
     const table = await findTable(tx, actor.shopId, tableId, { forUpdate: true });
@@ -77,6 +78,7 @@ export function addRevision(
       message: body.message,
       authorId: actor.id,
       analysisId: options.analysisId ?? null,
+      applied: options.applied ?? null,
     });
     await setHeadRevision(tx, actor.shopId, table.id, id);
     await recordAudit(tx, {

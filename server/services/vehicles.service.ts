@@ -100,6 +100,7 @@ export function changeVehicle(
       description: change.description ?? stored.description,
       engine: mergeEngine(stored.engine, change.engine),
       gearing: { ...stored.gearing, ...change.gearing },
+      fuelSafety: { ...stored.fuelSafety, ...change.fuelSafety },
     });
     if (!updated) throw notFound('Vehicle');
     await recordAudit(tx, {

@@ -96,6 +96,11 @@ export const applyAnalysisRequestSchema = z
     maxReach: z.number().int().min(0).max(100).optional(),
     lockedCells: z.array(cellSchema).max(10000).optional(),
     onlyCells: z.array(cellSchema).max(10000).optional(),
+    /**
+     * The fuel-safety guard under load (default on). `false` is an explicit choice: the revision
+     * records it and its message says so.
+     */
+    guard: z.boolean().optional(),
     message: z.string().max(2000).optional(),
   })
   .strict();

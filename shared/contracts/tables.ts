@@ -137,9 +137,74 @@ export const revisionSummarySchema = z.object({
 /** A revision without its values. */
 export type RevisionSummary = z.infer<typeof revisionSummarySchema>;
 
+/**
+ * How each cell of an applied revision got its value: `measured` (trusted data), `filled` (a
+ * guess from the neighbours or smoothing), `held` (a guess under load would have leaned it: kept,
+ * needs data), `locked`, or `unchanged`.
+ */
+export const CELL_ORIGINS = ['measured', 'filled', 'held', 'locked', 'unchanged'] as const;
+
+/** How a cell of an applied revision got its value. */
+export type CellOriginName = (typeof CELL_ORIGINS)[number];
+
+/** The fuel-safety guard an apply ran with. */
+export const appliedGuardSchema = z.object({
+  /** MAP at or above which a cell counted as under load, kPa absolute. */
+  loadLineKpa: z.number(),
+  /** The vehicle's load line, % of the barometric pressure. */
+  loadLinePercentOfBaro: z.number(),
+  /** How far a guess could lean a cell under load, %. */
+  leanAllowancePercent: z.number(),
+  /** The barometric pressure behind the line, kPa. */
+  baroKpa: z.number(),
+  /** Where that pressure came from: the logs' barometer, MAP with the engine off, or assumed. */
+  baroSource: z.enum(['logged', 'engine_off', 'assumed']),
+});
+
+/** The fuel-safety guard an apply ran with. */
+export type AppliedGuard = z.infer<typeof appliedGuardSchema>;
+
+/** A cell as `[row, col]`. */
+const cellIndexSchema = z.tuple([z.number().int().min(0), z.number().int().min(0)]);
+
+/** How an applied revision was made; recorded with the revision. */
+export const appliedRecordSchema = z.object({
+  /** The analysis applied. */
+  analysisId: z.string(),
+  /** Fraction of each correction applied. */
+  stepFraction: z.number(),
+  /** Smoothing strength used. */
+  smooth: z.number(),
+  /** Whether cells without trusted data were filled from their neighbours. */
+  fill: z.boolean(),
+  /** How far the fill reached, cells (null: everywhere). */
+  maxReach: z.number().nullable(),
+  /** Cells in the selection applied to (null: the whole table). */
+  selectedCells: z.number().int().nullable(),
+  /** The guard, or null when the user turned it off for this apply. */
+  guard: appliedGuardSchema.nullable(),
+  /** Cells under load the guard held: they need data (the next session plan's first targets). */
+  heldCells: z.array(cellIndexSchema),
+  /** How many cells got their value each way. */
+  counts: z.object({
+    measured: z.number().int(),
+    filled: z.number().int(),
+    held: z.number().int(),
+    locked: z.number().int(),
+    unchanged: z.number().int(),
+  }),
+  /** How each cell got its value, `[row][col]`. */
+  origin: z.array(z.array(z.enum(CELL_ORIGINS))),
+});
+
+/** How an applied revision was made. */
+export type AppliedRecord = z.infer<typeof appliedRecordSchema>;
+
 /** A revision with its values, as `GET /api/revisions/:id` answers it. */
 export const revisionSchema = revisionSummarySchema.extend({
   values: z.array(z.array(z.number())),
+  /** How it was applied from an analysis; null for a revision saved from the grid. */
+  applied: appliedRecordSchema.nullable(),
 });
 
 /** A revision with its values. */

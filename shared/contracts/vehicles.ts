@@ -39,6 +39,22 @@ const gearingFields = {
   finalDrive: rangeSchema('finalDrive', 1, 10),
 };
 
+const fuelSafetyFields = {
+  loadLinePercentOfBaro: rangeSchema('loadLinePercentOfBaro', 50, 150, '%'),
+  leanAllowancePercent: rangeSchema('leanAllowancePercent', 0, 5, '%'),
+};
+
+/**
+ * The fuel-safety guard of a vehicle's applies: cells whose MAP is at or above
+ * `loadLinePercentOfBaro` % of the barometric pressure seen in the logs count as under load, and
+ * a guess (fill, smoothing) may lean such a cell by at most `leanAllowancePercent` % unless a log
+ * measured it. Defaults 90 % and 1 % (common practice, no published source).
+ */
+export const fuelSafetySchema = z.object(fuelSafetyFields).strict();
+
+/** The fuel-safety settings a vehicle starts with. */
+export const DEFAULT_FUEL_SAFETY = { loadLinePercentOfBaro: 90, leanAllowancePercent: 1 } as const;
+
 /**
  * The engine as a client sends it: `stoichAfr` may be left out for a known fuel (it then takes
  * the product's value for that fuel) but is required for `custom`.
@@ -82,6 +98,7 @@ export const createVehicleRequestSchema = z
     description: descriptionSchema.default(''),
     engine: engineInputSchema,
     gearing: gearingSchema,
+    fuelSafety: fuelSafetySchema.default({ ...DEFAULT_FUEL_SAFETY }),
   })
   .strict();
 
@@ -100,10 +117,11 @@ export const updateVehicleRequestSchema = z
     description: descriptionSchema.optional(),
     engine: z.object(engineFields).partial().strict().optional(),
     gearing: gearingSchema.partial().strict().optional(),
+    fuelSafety: fuelSafetySchema.partial().strict().optional(),
   })
   .strict()
   .refine((body) => Object.values(body).some((value) => value !== undefined), {
-    message: 'give at least one of label, description, engine, gearing',
+    message: 'give at least one of label, description, engine, gearing, fuelSafety',
   });
 
 /** Body of `PATCH /api/vehicles/:id`. */
@@ -149,6 +167,7 @@ export const vehicleSchema = z.object({
   description: z.string(),
   engine: z.object(engineFields),
   gearing: gearingSchema,
+  fuelSafety: fuelSafetySchema,
   createdAt: z.string(),
   updatedAt: z.string(),
 });
@@ -160,3 +179,5 @@ export type Vehicle = z.infer<typeof vehicleSchema>;
 export type VehicleEngine = Vehicle['engine'];
 /** The gearing of a stored vehicle. */
 export type VehicleGearing = Vehicle['gearing'];
+/** The fuel-safety settings of a stored vehicle. */
+export type VehicleFuelSafety = Vehicle['fuelSafety'];

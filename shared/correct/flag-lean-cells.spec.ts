@@ -13,15 +13,29 @@ describe('flagLeanCells', () => {
     weight: grid([10, 10, 10, 10]),
   };
 
-  it('When loaded cells run lean, then they are flagged worst first with their severity', () => {
+  it('When loaded cells run lean, then they are flagged, the most severe first', () => {
     const flags = flagLeanCells(cells);
     expect(flags.map((f) => [f.row, f.col, f.severity])).toEqual([
-      [1, 0, 'warn'],
       [1, 1, 'abort'], // mean 2 % lean but one sample 12 % lean
+      [1, 0, 'warn'],
     ]);
-    expect(flags[0]?.rpm).toBe(2000);
-    expect(flags[0]?.mapKpa).toBe(120);
-    expect(flags[0]?.leanPercent).toBeCloseTo(6, 12);
+    expect(flags[1]?.rpm).toBe(2000);
+    expect(flags[1]?.mapKpa).toBe(120);
+    expect(flags[1]?.leanPercent).toBeCloseTo(6, 12);
+  });
+
+  it('When a lean cell rests on less weight than a proposal trusts, then it is only watched', () => {
+    const thin = { ...cells, weight: grid([10, 10, 0.3, 4.99]) };
+    const flags = flagLeanCells(thin);
+    expect(flags.map((f) => [f.row, f.col, f.severity])).toEqual([
+      [1, 0, 'watch'],
+      [1, 1, 'watch'],
+    ]);
+    // The threshold follows the analysis's own least weight.
+    expect(flagLeanCells(thin, { minWeight: 0.2 }).map((f) => f.severity)).toEqual([
+      'abort',
+      'warn',
+    ]);
   });
 
   it('When the load threshold is lowered, then part-load cells are flagged too', () => {

@@ -20,9 +20,17 @@ export interface LeanFlag {
   readonly worstLeanPercent: number;
   /** The cell's weight W, so a flag resting on one sample can be told apart. */
   readonly weight: number;
-  /** 'abort' at or beyond `abortLeanPercent`, else 'warn'. */
-  readonly severity: 'warn' | 'abort';
+  /**
+   * `abort` ("stop": stop loading the engine there until it is richer) at or beyond
+   * `abortLeanPercent`, else `warn` ("warning": richen before the next full-load run) — both only
+   * on a cell with the weight a proposal trusts. `watch`: as lean, but resting on too little data
+   * to act on; log the cell again.
+   */
+  readonly severity: LeanSeverity;
 }
+
+/** How loudly a lean cell is shown; see `LeanFlag.severity`. */
+export type LeanSeverity = 'watch' | 'warn' | 'abort';
 
 /** Options of `flagLeanCells` (defaults are common practice, no published source). */
 export interface LeanFlagOptions {
@@ -32,6 +40,11 @@ export interface LeanFlagOptions {
   readonly abortLeanPercent?: number;
   /** Cells whose MAP breakpoint is at or above this count as under load, kPa. Default 90. */
   readonly minLoadKpa?: number;
+  /**
+   * Least weight W for a `warn` or `abort` flag: the weight a proposal needs to trust a cell
+   * (default 5, as `proposeTable`). A lean cell below it is only a `watch`.
+   */
+  readonly minWeight?: number;
 }
 
 /** The per-cell evidence `flagLeanCells` reads (a `CellStats` fits). */
@@ -43,7 +56,8 @@ export type LeanEvidence = Pick<
 /**
  * The cells under load whose mean measured lambda is leaner than commanded by more than
  * `warnLeanPercent`, or where a single sample under load went `abortLeanPercent` lean — lean
- * mixture under load is what damages engines, so these are shown loudly. Sorted worst first.
+ * mixture under load is what damages engines, so these are shown loudly. Sorted by severity
+ * (abort, warn, watch), then leanest first.
  */
 export function flagLeanCells(cells: LeanEvidence, options: LeanFlagOptions = {}): LeanFlag[] {
   validateAxis(cells.rpmAxis, 'cells.rpmAxis');
@@ -61,6 +75,10 @@ export function flagLeanCells(cells: LeanEvidence, options: LeanFlagOptions = {}
     throw new Error('options.abortLeanPercent must be ≥ options.warnLeanPercent');
   }
   if (!Number.isFinite(minLoadKpa)) throw new Error('options.minLoadKpa must be a finite number');
+  const minWeight = options.minWeight ?? 5;
+  if (!(minWeight >= 0) || !Number.isFinite(minWeight)) {
+    throw new Error('options.minWeight must be a finite number ≥ 0');
+  }
   const flags: LeanFlag[] = [];
   for (let row = 0; row < shape.rows; row++) {
     const mapKpa = cells.mapAxisKpa[row] as number;
@@ -74,10 +92,14 @@ export function flagLeanCells(cells: LeanEvidence, options: LeanFlagOptions = {}
       // Errors come from a division, so 0.88/0.8 lands a hair under 10 %: lean toward 'abort'.
       const worstIsAbort = worstLeanPercent >= abort - ROUNDING_PERCENT;
       if (!(leanPercent > warn) && !worstIsAbort) continue;
-      const severity = leanPercent >= abort - ROUNDING_PERCENT || worstIsAbort ? 'abort' : 'warn';
+      const loud = leanPercent >= abort - ROUNDING_PERCENT || worstIsAbort ? 'abort' : 'warn';
+      // A flag resting on a sliver of weight (a column the dyno never ran, touched by the edge
+      // of one hold's interpolation) is not evidence enough to act on.
+      const severity: LeanSeverity = weight >= minWeight ? loud : 'watch';
       const rpm = cells.rpmAxis[col] as number;
       flags.push({ row, col, rpm, mapKpa, leanPercent, worstLeanPercent, weight, severity });
     }
   }
-  return flags.sort((a, b) => b.leanPercent - a.leanPercent);
+  const rank: Record<LeanSeverity, number> = { abort: 0, warn: 1, watch: 2 };
+  return flags.sort((a, b) => rank[a.severity] - rank[b.severity] || b.leanPercent - a.leanPercent);
 }

@@ -4,6 +4,7 @@ import { requireChannel, type ColumnarLog } from '../core/channels';
 import { tableToGrid, validateTable, type VeTable } from '../core/table';
 import { flagLeanCells, proposeTable, type LeanFlag, type Proposal } from '../correct';
 import { DEFAULT_FILTER_RULES, type FilterRule, type FunnelStep } from '../filter';
+import { estimateBaro, type BaroEstimate } from './estimate-baro';
 import { prepareLog } from './prepare-log';
 
 /** One log to analyse, with the table the ECU ran when it was recorded. */
@@ -75,6 +76,8 @@ export interface Analysis {
   readonly leanFlags: readonly LeanFlag[];
   /** Per-log details, in input order. */
   readonly logs: readonly LogContribution[];
+  /** The barometric pressure the logs were recorded at (the fuel-safety guard's reference). */
+  readonly baro: BaroEstimate;
 }
 
 /** Engine facts the analysis needs. */
@@ -186,6 +189,8 @@ export function analyseLogs(
   const leanFlags = flagLeanCells(cells, {
     warnLeanPercent: settings.warnLeanPercent,
     minLoadKpa: settings.leanLoadKpa,
+    minWeight: settings.minWeight,
   });
-  return { cells, proposal, leanFlags, logs: contributions };
+  const baro = estimateBaro(logs.map((item) => item.log));
+  return { cells, proposal, leanFlags, logs: contributions, baro };
 }

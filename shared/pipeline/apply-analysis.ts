@@ -1,6 +1,12 @@
 import type { CellStats } from '../accumulate';
 import { tableToGrid, validateTable, withValues, type Grid, type VeTable } from '../core/table';
-import { proposeTable, type Proposal } from '../correct';
+import {
+  defaultLoadGuard,
+  guardUnderLoad,
+  proposeTable,
+  type LoadGuard,
+  type Proposal,
+} from '../correct';
 import { applyRatios, fillRatios } from '../fill';
 import { smoothTable } from '../smooth';
 
@@ -29,7 +35,20 @@ export interface ApplyOptions {
   readonly locked?: Uint8Array;
   /** Only these cells (non-zero) take the change; the rest keep the base value. Default all. */
   readonly only?: Uint8Array;
+  /**
+   * The fuel-safety guard under load (see `guardUnderLoad`). Absent: on, with the line at 90 % of
+   * standard barometric pressure and a 1 % allowance. `null` turns it off — an explicit choice
+   * the caller must record.
+   */
+  readonly guard?: LoadGuard | null;
 }
+
+/**
+ * How a cell of an applied table got its value: `measured` (trusted data), `filled` (a guess from
+ * the neighbours or smoothing moved it), `held` (a guess under load would have leaned it: kept,
+ * needs data), `locked`, or `unchanged` (no data and no guess, or outside the selection).
+ */
+export type CellOrigin = 'measured' | 'filled' | 'held' | 'locked' | 'unchanged';
 
 /** The new table and how each cell got there. */
 export interface AppliedTable {
@@ -39,6 +58,14 @@ export interface AppliedTable {
   readonly ratio: Grid;
   /** The proposal before fill and smoothing. */
   readonly proposal: Proposal;
+  /** How each cell got its value, row-major. */
+  readonly origin: readonly CellOrigin[];
+  /** Cells under load the guard held (row-major 0/1): they need data. */
+  readonly held: Uint8Array;
+  /** How many cells the guard held. */
+  readonly heldCount: number;
+  /** The guard that ran, or null when it was turned off. */
+  readonly guard: LoadGuard | null;
 }
 
 /**
@@ -91,14 +118,40 @@ export function applyAnalysis(
       },
     );
   }
-  if (options.only || options.locked) {
-    const masked = new Float64Array(ratio.data);
-    for (let i = 0; i < size; i++) {
-      if ((options.only && !options.only[i]) || (options.locked && options.locked[i]))
-        masked[i] = 1;
-    }
-    ratio = { rows: ratio.rows, cols: ratio.cols, data: masked };
+  const guard = options.guard === undefined ? defaultLoadGuard() : options.guard;
+  let held: Uint8Array = new Uint8Array(size);
+  if (guard) {
+    const guarded = guardUnderLoad(ratio, base.mapAxisKpa, proposal.known, guard);
+    ratio = guarded.ratio;
+    held = guarded.held;
   }
+  const masked = new Float64Array(ratio.data);
+  const origin: CellOrigin[] = new Array<CellOrigin>(size);
+  let heldCount = 0;
+  for (let i = 0; i < size; i++) {
+    const isOutside = options.only !== undefined && !options.only[i];
+    if (isOutside || (options.locked && options.locked[i])) {
+      masked[i] = 1;
+      held[i] = 0;
+      origin[i] = isOutside ? 'unchanged' : 'locked';
+    } else if (held[i]) {
+      origin[i] = 'held';
+      heldCount++;
+    } else if (proposal.status[i] === 'trusted') {
+      origin[i] = 'measured';
+    } else {
+      origin[i] = Math.abs((masked[i] as number) - 1) > 1e-12 ? 'filled' : 'unchanged';
+    }
+  }
+  ratio = { rows: ratio.rows, cols: ratio.cols, data: masked };
   const values = applyRatios(baseGrid, ratio);
-  return { table: withValues(base, values), ratio, proposal };
+  return {
+    table: withValues(base, values),
+    ratio,
+    proposal,
+    origin,
+    held,
+    heldCount,
+    guard: guard ?? null,
+  };
 }

@@ -183,6 +183,84 @@ describe('analyses', () => {
       );
     });
 
+    it('When a road log is applied with the defaults, then no guessed cell under load is leaner than the base beyond the allowance', async () => {
+      const { body: analysis } = await tuner.post(`/api/tables/${tableId}/analyses`, {
+        baseRevisionId,
+        logIds: [logIds[0]],
+      });
+      // The simulated logs carry no barometer and start with the engine running.
+      expect(analysis.guard).toMatchObject({
+        loadLinePercentOfBaro: 90,
+        leanAllowancePercent: 1,
+        baroSource: 'assumed',
+      });
+      expect(analysis.guard.loadLineKpa).toBeCloseTo(91.19, 2);
+      const applied = await tuner.post(`/api/analyses/${analysis.id}/apply`, {});
+      expect(applied.status).toBe(201);
+      const revision = applied.body as Revision;
+      expect(revision.applied).not.toBeNull();
+      const record = revision.applied as NonNullable<Revision['applied']>;
+      expect(record.guard).toEqual(analysis.guard);
+      expect(record.counts.measured).toBeGreaterThan(10);
+      const floor = 1 - analysis.guard.leanAllowancePercent / 100;
+      let guessedUnderLoad = 0;
+      record.origin.forEach((row, r) =>
+        row.forEach((origin, c) => {
+          const base = ecu.values[r]?.[c] as number;
+          const value = revision.values[r]?.[c] as number;
+          if (origin === 'held') expect(value).toBe(base);
+          if ((ecu.mapAxisKpa[r] as number) < analysis.guard.loadLineKpa) return;
+          if (origin === 'filled' || origin === 'held') {
+            guessedUnderLoad++;
+            // Stored VE is rounded to hundredths.
+            expect(value).toBeGreaterThanOrEqual(base * floor - 0.005);
+          }
+        }),
+      );
+      expect(guessedUnderLoad).toBeGreaterThan(0);
+      expect(record.heldCells).toHaveLength(record.counts.held);
+      for (const [r, c] of record.heldCells) expect(record.origin[r]?.[c]).toBe('held');
+
+      const read = await tuner.get(`/api/revisions/${revision.id}`);
+      expect(read.body.applied).toEqual(record);
+    });
+
+    it('When the tuner turns the guard off, then the revision records it and says so', async () => {
+      const { body: analysis } = await tuner.post(`/api/tables/${tableId}/analyses`, {
+        baseRevisionId,
+        logIds: [logIds[0]],
+      });
+      const off = await tuner.post(`/api/analyses/${analysis.id}/apply`, { guard: false });
+      expect(off.status).toBe(201);
+      expect(off.body.applied.guard).toBeNull();
+      expect(off.body.applied.counts.held).toBe(0);
+      expect(off.body.message).toMatch(/guard under load turned OFF/);
+    });
+
+    it('When the vehicle moves its load line, then the analysis guard follows it', async () => {
+      const patched = await tuner.patch(`/api/vehicles/${vehicleId}`, {
+        fuelSafety: { loadLinePercentOfBaro: 80, leanAllowancePercent: 0.5 },
+      });
+      expect(patched.status).toBe(200);
+      expect(patched.body.fuelSafety).toEqual({
+        loadLinePercentOfBaro: 80,
+        leanAllowancePercent: 0.5,
+      });
+      const { body: analysis } = await tuner.post(`/api/tables/${tableId}/analyses`, {
+        baseRevisionId,
+        logIds: [logIds[0]],
+      });
+      expect(analysis.guard.loadLineKpa).toBeCloseTo(81.06, 2);
+      expect(analysis.guard.leanAllowancePercent).toBe(0.5);
+      const bad = await tuner.patch(`/api/vehicles/${vehicleId}`, {
+        fuelSafety: { leanAllowancePercent: 20 },
+      });
+      expect(bad.status).toBe(400);
+      await tuner.patch(`/api/vehicles/${vehicleId}`, {
+        fuelSafety: { loadLinePercentOfBaro: 90, leanAllowancePercent: 1 },
+      });
+    });
+
     it('When the settings are invalid, then 400 names the field', async () => {
       const zero = await tuner.post(`/api/tables/${tableId}/analyses`, {
         baseRevisionId,

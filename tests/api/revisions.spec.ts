@@ -74,6 +74,7 @@ describe('revisions routes', () => {
         authorId: shop.userIds[shop.emails.tuner],
         authorName: expect.any(String),
         analysisId: null,
+        applied: null,
         createdAt: expect.any(String),
       });
       expect((await tuner.get(`/api/tables/${table.id}`)).body.headRevisionId).toBe(res.body.id);

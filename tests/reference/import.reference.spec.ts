@@ -64,13 +64,13 @@ describe('import conversions against published values', () => {
     // Source: mathjs 15.2.0 unit system (a general-purpose reference library)
     const log = importRow({
       'MAP [psi]': '14.7',
-      'IAT [°F]': '451',
+      'IAT [°F]': '212',
       'Speed [mph]': '60',
     });
     // mathjs's psi differs from NIST's by 6e-11 relative (reference.md §4): compare at 1e-9.
     const psi = unit(14.7, 'psi').toNumber('kPa');
     expect(Math.abs((log.channels.map?.[0] as number) - psi) / psi).toBeLessThan(1e-9);
-    expect(log.channels.iat?.[0]).toBeCloseTo(unit(451, 'degF').toNumber('degC'), 9);
+    expect(log.channels.iat?.[0]).toBeCloseTo(unit(212, 'degF').toNumber('degC'), 9);
     expect(log.channels.speed?.[0]).toBeCloseTo(unit(60, 'mi/h').toNumber('km/h'), 9);
   });
 
