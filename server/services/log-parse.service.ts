@@ -193,7 +193,7 @@ export async function parseStoredLog(
       progress: 1,
       sampleCount: samples.length,
       durationS,
-      channelSummary: summarizeChannels(samples),
+      channelSummary: summarizeChannels(samples, ['rpm', 'map']),
       parseReport,
     });
     // Another run finished or failed this log meanwhile: keep what it stored.

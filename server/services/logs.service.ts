@@ -2,18 +2,21 @@ import { randomUUID } from 'node:crypto';
 import type { ColumnarLog, Channel } from '../../shared/core/channels';
 import {
   columnMappingSchema,
+  type BeyondTable,
   type LogResource,
   type MappingPreset as MappingPresetResource,
   type MappingSource,
   type UploadLogFields,
   type UploadLogResponse,
 } from '../../shared/contracts/logs';
+import type { VeTableResource } from '../../shared/contracts/tables';
 import {
   createLogBuilder,
   headerSignature,
   isChannel,
   isImportError,
   planImport,
+  shareAbove,
   sniffCsv,
   SNIFF_LENGTH,
   type ColumnMapping,
@@ -38,6 +41,7 @@ import {
   savePreset,
   type MappingPreset,
 } from '../repositories/mapping-presets.repository';
+import { listTablesOfVehicle } from '../repositories/tables.repository';
 import type { SessionUserRecord } from '../repositories/users.repository';
 import { decodeChannel } from './channel-codec';
 import {
@@ -247,7 +251,32 @@ export async function getLog(
 ): Promise<LogResource> {
   const log = await findLog(db, user.shopId, logId);
   if (!log) throw notFound('Log');
-  return log;
+  const tables = await listTablesOfVehicle(db, user.shopId, log.vehicleId);
+  return { ...log, beyondTables: beyondTables(log, tables) };
+}
+
+/** The tables a parsed log runs past the top of, with the share of its samples beyond. */
+function beyondTables(log: LogResource, tables: readonly VeTableResource[]): BeyondTable[] {
+  const rpm = log.channelSummary?.rpm;
+  const map = log.channelSummary?.map;
+  if (!rpm || !map || rpm.max === null || map.max === null) return [];
+  const out: BeyondTable[] = [];
+  for (const table of tables) {
+    const rpmTop = table.rpmAxis[table.rpmAxis.length - 1] as number;
+    const mapTopKpa = table.mapAxisKpa[table.mapAxisKpa.length - 1] as number;
+    if (!(rpm.max > rpmTop) && !(map.max > mapTopKpa)) continue;
+    out.push({
+      tableId: table.id,
+      tableName: table.name,
+      rpmTop,
+      logRpmMax: rpm.max,
+      mapTopKpa,
+      logMapMaxKpa: map.max,
+      shareAboveRpm: rpm.permille ? shareAbove(rpm.permille, rpmTop) : null,
+      shareAboveMap: map.permille ? shareAbove(map.permille, mapTopKpa) : null,
+    });
+  }
+  return out;
 }
 
 /** The logs of a vehicle of the user's shop, newest first; 404 when the vehicle is not theirs. */

@@ -133,7 +133,27 @@ export const channelSummarySchema = z.object({
   max: z.number().nullable(),
   mean: z.number().nullable(),
   nanCount: z.number(),
+  /** RPM and MAP only, logs parsed since it was kept: values at each 0.1 % of the samples. */
+  permille: z.array(z.number()).optional(),
 });
+
+/** How far a log runs past the top of one of its vehicle's tables. */
+export const beyondTableSchema = z.object({
+  tableId: z.string(),
+  tableName: z.string(),
+  /** The table's top RPM breakpoint and the log's highest RPM. */
+  rpmTop: z.number(),
+  logRpmMax: z.number(),
+  /** The table's top MAP breakpoint and the log's highest MAP, kPa absolute. */
+  mapTopKpa: z.number(),
+  logMapMaxKpa: z.number(),
+  /** Share 0–1 of the samples above the top RPM / MAP; null for logs parsed before it was kept. */
+  shareAboveRpm: z.number().nullable(),
+  shareAboveMap: z.number().nullable(),
+});
+
+/** How far a log runs past the top of a table. */
+export type BeyondTable = z.infer<typeof beyondTableSchema>;
 
 /** One problem found in a file, located by line (from 0) and CSV column. */
 export const importProblemSchema = z.object({
@@ -189,6 +209,11 @@ export const logSchema = z.object({
   error: logErrorSchema.nullable(),
   channelSummary: z.partialRecord(z.enum(CHANNELS), channelSummarySchema).nullable(),
   parseReport: parseReportSchema.nullable(),
+  /**
+   * The vehicle's tables this log runs past the top of (RPM or MAP above the last breakpoint):
+   * those samples land on the table's edge cells. Only on `GET /api/logs/:id`.
+   */
+  beyondTables: z.array(beyondTableSchema).optional(),
   createdAt: z.string(),
   updatedAt: z.string(),
 });

@@ -4,7 +4,15 @@ import { logChannels } from '../../db/schema';
 import type { LogResource } from '../../shared/contracts/logs';
 import { type ApiClient, signedIn } from './support/api-client';
 import { startTestApp, type TestApp } from './support/test-app';
-import { insertTestVehicle, postLog, simulatedCsv, waitForLog } from './support/test-logs';
+import { createTable } from './support/test-data';
+import { csvText, DEMO_HATCH, simulateSamples } from '../../shared/sim';
+import {
+  insertTestVehicle,
+  postLog,
+  simulatedCsv,
+  TEST_STOICH_AFR,
+  waitForLog,
+} from './support/test-logs';
 import { createTestShop, TEST_PASSWORD, type TestShop } from './support/test-shop';
 
 /** The snake style's mapping, given explicitly so damaged rows never sway a suggestion. */
@@ -178,6 +186,7 @@ describe('log parsing and reads', () => {
       const log = read.body as LogResource;
       expect(Object.keys(log).sort()).toEqual(
         [
+          'beyondTables',
           'channelSummary',
           'createdAt',
           'durationS',
@@ -226,6 +235,45 @@ describe('log parsing and reads', () => {
     it('When the vehicle belongs to another shop, then 404', async () => {
       const otherVehicle = await insertTestVehicle(t.db, otherShop.id);
       expect((await tuner.get(`/api/vehicles/${otherVehicle}/logs`)).status).toBe(404);
+    });
+  });
+
+  describe('logs beyond a table', () => {
+    it('When a boost log meets a table that ends at 105 kPa, then the log says how much lies above it', async () => {
+      const table = await createTable(tuner, vehicleId, {
+        name: 'Ends at atmosphere',
+        rpmAxis: [1000, 2000, 4000, 8000],
+        mapAxisKpa: [30, 60, 90, 105],
+        values: [
+          [40, 45, 50, 48],
+          [60, 70, 75, 72],
+          [80, 90, 95, 92],
+          [85, 95, 98, 95],
+        ],
+      });
+      // Two minutes on the road: about a tenth of it in boost, 2400 samples.
+      const drive = csvText(
+        simulateSamples({ vehicle: DEMO_HATCH, kind: 'road', seed: 58, durationS: 120 }),
+        'snake',
+        { stoichAfr: TEST_STOICH_AFR },
+      );
+      const res = await postLog(tuner, vehicleId, drive);
+      expect(res.status).toBe(202);
+      await waitForLog(tuner, res.body.id as string, ['ready', 'failed'], 60_000);
+      const log = (await tuner.get(`/api/logs/${res.body.id}`)).body as LogResource;
+      expect(log.status).toBe('ready');
+      const beyond = log.beyondTables?.find((b) => b.tableId === table.id);
+      expect(beyond).toBeDefined();
+      const { logMapMaxKpa, shareAboveMap, shareAboveRpm } = beyond as NonNullable<typeof beyond>;
+      expect(logMapMaxKpa).toBeGreaterThan(105);
+      expect(shareAboveRpm).toBe(0);
+      // Recount from the samples themselves (a 2400-sample log comes back sample by sample).
+      const series = (await tuner.get(`/api/logs/${res.body.id}/series?points=5000`)).body;
+      expect(series.isExact).toBe(true);
+      const samples = series.channels.mapKpa.mean as number[];
+      const above = samples.filter((v) => v > 105).length / samples.length;
+      expect(shareAboveMap).toBeGreaterThan(0.05);
+      expect(Math.abs((shareAboveMap as number) - above)).toBeLessThan(0.002);
     });
   });
 });

@@ -13,6 +13,7 @@ import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { displaySummaryRows, mappingRows, summaryRows } from './log-rows';
 import { LogSeriesChart } from './log-series-chart';
 import {
+  beyondTableText,
   MAPPING_SOURCE_LABELS,
   formatBytes,
   formatDuration,
@@ -99,6 +100,15 @@ export class LogPage {
           this.preferences.units(),
           this.preferences.mixture(),
           this.vehicle.hasValue() ? this.vehicle.value().engine.stoichAfr : null,
+        )
+      : [],
+  );
+
+  /** One sentence per table of the vehicle this log runs past the top of. */
+  protected readonly beyond = computed(() =>
+    this.log.hasValue()
+      ? (this.log.value().beyondTables ?? []).map((b) =>
+          beyondTableText(b, this.preferences.units()),
         )
       : [],
   );

@@ -1,5 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import {
+  beyondTableText,
   canUploadLogs,
   formatBytes,
   formatDuration,
@@ -111,5 +112,37 @@ describe('canUploadLogs', () => {
     [['admin'], false],
   ] as const)('When a member holds %p, then uploading is %p', (roles, allowed) => {
     expect(canUploadLogs(roles)).toBe(allowed);
+  });
+});
+
+describe('beyondTableText', () => {
+  const beyond = {
+    tableId: 't',
+    tableName: 'Main VE',
+    rpmTop: 7000,
+    logRpmMax: 6500,
+    mapTopKpa: 105,
+    logMapMaxKpa: 196.2,
+    shareAboveRpm: 0,
+    shareAboveMap: 0.184,
+  };
+
+  it('When a boost log meets a table ending at 105 kPa, then it says the share above in kPa', () => {
+    expect(beyondTableText(beyond, 'metric')).toMatch(
+      /^Runs past the top of “Main VE”: 18 % of the samples are above its top MAP of 105(\.0)? kPa \(the log reaches 196(\.2)? kPa\)\./,
+    );
+  });
+
+  it('When the user prefers imperial, then the pressures read in psi(a)', () => {
+    expect(beyondTableText(beyond, 'imperial')).toContain('psi(a)');
+  });
+
+  it('When the log also passes the top RPM and the shares are unknown, then it says "some"', () => {
+    const text = beyondTableText(
+      { ...beyond, logRpmMax: 7400, shareAboveRpm: null, shareAboveMap: null },
+      'metric',
+    );
+    expect(text).toContain('some of the samples are above its top MAP');
+    expect(text).toContain('some are above its top RPM of 7000 (the log reaches 7400)');
   });
 });

@@ -1,8 +1,10 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { hasAnyRole } from '@shared/auth/access';
-import type { MappingSource } from '@shared/contracts/logs';
+import type { BeyondTable, MappingSource } from '@shared/contracts/logs';
+import type { UnitSystem } from '@shared/contracts/preferences';
 import type { Role } from '@shared/contracts/roles';
 import { apiErrorMessage } from '../../core/api/api-error';
+import { formatQuantity } from '../../shared/units/format-quantity';
 
 export {
   LOG_STATUS_LABELS,
@@ -89,4 +91,38 @@ export function uploadFailure(error: unknown): UploadFailure {
 export function sentFraction(loaded: number, total: number | undefined): number | null {
   if (total === undefined || total <= 0) return null;
   return Math.min(1, Math.max(0, loaded / total));
+}
+
+/** A share 0–1 as "18 %", or "under 1 %" for a small non-zero share. */
+function shareText(share: number): string {
+  if (share > 0 && share < 0.01) return 'under 1 %';
+  return `${Math.round(share * 100)} %`;
+}
+
+/**
+ * How a log runs past the top of a table, in one sentence in the user's units: e.g. "Runs past
+ * the top of “Main VE”: 18 % of the samples are above its top MAP of 105 kPa (the log reaches
+ * 196 kPa). They count toward the table's edge cells."
+ */
+export function beyondTableText(beyond: BeyondTable, units: UnitSystem): string {
+  const parts: string[] = [];
+  if (beyond.logMapMaxKpa > beyond.mapTopKpa) {
+    const share = beyond.shareAboveMap === null ? 'some' : shareText(beyond.shareAboveMap);
+    parts.push(
+      `${share} of the samples are above its top MAP of ` +
+        `${formatQuantity('pressure', beyond.mapTopKpa, units)} (the log reaches ` +
+        `${formatQuantity('pressure', beyond.logMapMaxKpa, units)})`,
+    );
+  }
+  if (beyond.logRpmMax > beyond.rpmTop) {
+    const share = beyond.shareAboveRpm === null ? 'some' : shareText(beyond.shareAboveRpm);
+    parts.push(
+      `${share} are above its top RPM of ${Math.round(beyond.rpmTop)} ` +
+        `(the log reaches ${Math.round(beyond.logRpmMax)})`,
+    );
+  }
+  return (
+    `Runs past the top of “${beyond.tableName}”: ${parts.join('; ')}. ` +
+    'They count toward the table’s edge cells; a table whose axes cover them fits this engine better.'
+  );
 }

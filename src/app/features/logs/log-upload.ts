@@ -22,9 +22,11 @@ import type { Vehicle } from '@shared/contracts/vehicles';
 import { forkJoin, map, of, switchMap, takeWhile, timer, type Observable } from 'rxjs';
 import { LogsApi } from '../../core/api/logs-api';
 import { VehiclesApi } from '../../core/api/vehicles-api';
+import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { checkMapping, type MappingCheck } from './mapping-check';
 import { MappingDialog, type MappingDialogData } from './mapping-dialog';
 import {
+  beyondTableText,
   formatBytes,
   isPending,
   sentFraction,
@@ -69,6 +71,7 @@ export class LogUpload {
   private readonly vehiclesApi = inject(VehiclesApi);
   private readonly dialog = inject(MatDialog);
   private readonly destroyRef = inject(DestroyRef);
+  private readonly preferences = inject(DisplayPreferences);
 
   /** The shop's vehicles to choose from. */
   readonly vehicles = input.required<readonly Vehicle[]>();
@@ -107,6 +110,11 @@ export class LogUpload {
   /** Whether the form is complete and nothing is in flight. */
   protected readonly canSend = computed(
     () => this.vehicleId() !== null && this.file() !== null && !BUSY.has(this.phase()),
+  );
+
+  /** Once the log is read: one sentence per table of its vehicle it runs past the top of. */
+  protected readonly beyond = computed(() =>
+    (this.log()?.beyondTables ?? []).map((b) => beyondTableText(b, this.preferences.units())),
   );
 
   /** The chip text of a log. */
