@@ -30,6 +30,26 @@ export default tseslint.config(
     },
   },
   {
+    // Files a reader can hold in mind: about 300 lines of code (specs may run longer).
+    files: ['**/*.ts'],
+    ignores: ['**/*.spec.ts', '**/*.e2e.ts', 'tests/**', 'bench/**'],
+    rules: { 'max-lines': ['error', { max: 300, skipBlankLines: true, skipComments: true }] },
+  },
+  {
+    // db/ holds the schema and its migrations only; the server sits above it, never below.
+    files: ['db/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            { group: ['**/server/*', '**/server'], message: 'db/ imports nothing from server/' },
+          ],
+        },
+      ],
+    },
+  },
+  {
     files: ['src/**/*.ts'],
     extends: [...angular.configs.tsRecommended],
     processor: angular.processInlineTemplates,

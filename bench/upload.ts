@@ -118,7 +118,7 @@ async function main(): Promise<void> {
       CELLSMITH_DATA_DIR: join(tmp, 'data'),
       DATABASE_URL: pg.databaseUrl(pgPort, 'cellsmith'),
     };
-    spawnSync('node', ['--import', 'tsx', 'db/setup-cli.ts', '--no-garage'], {
+    spawnSync('node', ['--import', 'tsx', 'server/setup-cli.ts', '--no-garage'], {
       cwd: root,
       env,
       stdio: 'ignore',

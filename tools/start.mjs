@@ -106,7 +106,7 @@ async function main() {
     CELLSMITH_DATA_DIR: dataDir,
     DATABASE_URL: process.env.DATABASE_URL || databaseUrl(pgPort, 'cellsmith'),
   };
-  run('node', ['--import', 'tsx', 'db/setup-cli.ts'], { env });
+  run('node', ['--import', 'tsx', 'server/setup-cli.ts'], { env });
   ensureClientBuild();
   if (stopping) return;
 

@@ -1,7 +1,7 @@
 // `npm test`: the set-up of `npm start` on a throwaway cluster and database (free port, temp
 // folder, removed afterwards), then type-checks, lint, format check and every Jest project,
 // closing with one line `N passed, N failed`. Extra arguments go to Jest. Set
-// CELLSMITH_TEST_SKIP=typecheck,lint,format,build to skip steps while iterating.
+// CELLSMITH_TEST_SKIP=typecheck,lint,cycles,format,build to skip steps while iterating.
 import { spawnSync } from 'node:child_process';
 import { chmodSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
@@ -85,13 +85,14 @@ async function main() {
       CHROMIUM_PATH: CHROMIUM,
       SESSION_SECRET: 'test-secret-that-is-long-enough-to-pass-validation',
     };
-    run('node', ['--import', 'tsx', 'db/setup-cli.ts'], { env });
+    run('node', ['--import', 'tsx', 'server/setup-cli.ts'], { env });
     if (!skip.has('build')) ensureClientBuild();
 
     step('typecheck:app', 'npx', ['tsc', '--noEmit', '-p', 'tsconfig.app.json'], env);
     step('typecheck:spec', 'npx', ['tsc', '--noEmit', '-p', 'tsconfig.spec.json'], env);
     step('typecheck:server', 'npx', ['tsc', '--noEmit', '-p', 'tsconfig.server.json'], env);
     step('lint', 'npx', ['eslint', '.'], env);
+    step('cycles', 'node', ['tools/check-import-cycles.mjs'], env);
     step('format', 'npx', ['prettier', '--check', '.', '--log-level', 'warn'], env);
 
     const report = join(tmp, 'jest.json');

@@ -14,12 +14,8 @@ import type { AppContext } from '../context';
 import { currentUser, requireRoles, requireSignedIn } from '../middleware/auth';
 import { validate, validated } from '../middleware/validate';
 import { analysisSamples } from '../services/analysis-samples';
-import {
-  applyStoredAnalysis,
-  createAnalysis,
-  getAnalysis,
-  listAnalyses,
-} from '../services/analyses.service';
+import { createAnalysis, getAnalysis, listAnalyses } from '../services/analyses.service';
+import { applyStoredAnalysis } from '../services/analysis-apply.service';
 
 /** Analyses of a table's logs, their kept samples, and applying one as a new revision. */
 export function analysisRoutes(ctx: AppContext): Router {

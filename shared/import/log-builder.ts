@@ -7,23 +7,12 @@ import {
   channelsToRead,
   resolveLogInputs,
   validateLogBuilderOptions,
+  type LogBuilderOptions,
   type LogInput,
 } from './log-inputs';
 import { RowReader } from './row-reader';
 
-/** Options of {@link createLogBuilder}. */
-export interface LogBuilderOptions {
-  /** The fuel's stoichiometric AFR, to turn AFR columns into lambda. */
-  readonly stoichAfr: number;
-  /** Barometric pressure (kPa) for gauge boost when the file logs none (or a cell is empty). */
-  readonly baroKpa?: number;
-  /** The header's column names, when the rows pushed start below the header. */
-  readonly columns?: readonly string[];
-  /** How many problems to keep in detail (default 1000); all are counted. */
-  readonly maxProblems?: number;
-  /** Above this share of dropped rows the file is flagged mostly bad (default 0.5). */
-  readonly mostlyBadFraction?: number;
-}
+export type { LogBuilderOptions } from './log-inputs';
 
 /** Turns CSV rows, pushed chunk by chunk, into a {@link ColumnarLog}. */
 export interface LogBuilder {

@@ -7,7 +7,20 @@ import {
 } from './channel-converter';
 import type { ColumnMapping } from './column-mapping';
 import { ImportError } from './import-error';
-import type { LogBuilderOptions } from './log-builder';
+
+/** Options of `createLogBuilder` (log-builder.ts). */
+export interface LogBuilderOptions {
+  /** The fuel's stoichiometric AFR, to turn AFR columns into lambda. */
+  readonly stoichAfr: number;
+  /** Barometric pressure (kPa) for gauge boost when the file logs none (or a cell is empty). */
+  readonly baroKpa?: number;
+  /** The header's column names, when the rows pushed start below the header. */
+  readonly columns?: readonly string[];
+  /** How many problems to keep in detail (default 1000); all are counted. */
+  readonly maxProblems?: number;
+  /** Above this share of dropped rows the file is flagged mostly bad (default 0.5). */
+  readonly mostlyBadFraction?: number;
+}
 
 /** One mapped column as the builder reads it. */
 export interface LogInput {

@@ -1,5 +1,5 @@
-import { seedDemoGarage } from '../../db/seed/demo-garage';
-import { demoPassword } from '../../db/seed/demo-shop';
+import { seedDemoGarage } from '../../server/seed/demo-garage';
+import { demoPassword } from '../../server/seed/demo-shop';
 import type { LogResource } from '../../shared/contracts/logs';
 import type { Vehicle } from '../../shared/contracts/vehicles';
 import { signedIn } from './support/api-client';

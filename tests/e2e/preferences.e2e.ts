@@ -1,4 +1,4 @@
-import { demoPassword } from '../../db/seed/demo-shop';
+import { demoPassword } from '../../server/seed/demo-shop';
 import { signInThroughForm, signOutThroughMenu } from './helpers/auth';
 import {
   DEFAULT_PREFERENCES,

@@ -1,4 +1,4 @@
-import { demoPassword } from '../../db/seed/demo-shop';
+import { demoPassword } from '../../server/seed/demo-shop';
 import { navigationLinks, signInThroughForm, signOutThroughMenu } from './helpers/auth';
 import { startRunningApp, type RunningApp } from './support/app-server';
 import { launchBrowser, screenshot, type TestBrowser } from './support/browser';

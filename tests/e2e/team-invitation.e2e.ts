@@ -1,4 +1,4 @@
-import { demoPassword } from '../../db/seed/demo-shop';
+import { demoPassword } from '../../server/seed/demo-shop';
 import { navigationLinks, signInThroughForm, signOutThroughMenu } from './helpers/auth';
 import { acceptInvitation, inviteMember, openTeam, readInvitationLink } from './helpers/team';
 import { startRunningApp, type RunningApp } from './support/app-server';

@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { shops, users } from '../../../db/schema';
-import { seedDemo } from '../../../db/seed/seed';
+import { seedDemo } from '../../../server/seed/seed';
 import type { Role } from '../../../shared/contracts/roles';
 import type { Database } from '../../../server/db';
 

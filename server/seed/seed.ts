@@ -1,7 +1,7 @@
 import { eq, sql } from 'drizzle-orm';
-import type { Database } from '../../server/db';
-import { hashPassword, verifyPassword } from '../../server/services/passwords';
-import { memberships, shops, users } from '../schema';
+import type { Database } from '../db';
+import { hashPassword, verifyPassword } from '../services/passwords';
+import { memberships, shops, users } from '../../db/schema';
 import { DEMO_SHOPS, type DemoShop } from './demo-shop';
 
 /** What the seed did, for its log line. */

@@ -14,20 +14,20 @@ import {
   type CsvStyle,
 } from '../../shared/sim';
 import type { SimVehicle } from '../../shared/sim/sim-vehicle';
-import type { AppConfig } from '../../server/config';
-import type { AppContext } from '../../server/context';
-import type { Database } from '../../server/db';
+import type { AppConfig } from '../config';
+import type { AppContext } from '../context';
+import type { Database } from '../db';
 import {
   findSignInCandidate,
   type SessionUserRecord,
-} from '../../server/repositories/users.repository';
-import { createAnalysis } from '../../server/services/analyses.service';
-import { parseStoredLog } from '../../server/services/log-parse.service';
-import { uploadTmpDir, type ReceivedFile } from '../../server/services/log-storage.service';
-import { uploadLog } from '../../server/services/logs.service';
-import { createTable } from '../../server/services/tables.service';
-import { addVehicle } from '../../server/services/vehicles.service';
-import { vehicles } from '../schema';
+} from '../repositories/users.repository';
+import { createAnalysis } from '../services/analyses.service';
+import { parseStoredLog } from '../services/log-parse.service';
+import { uploadTmpDir, type ReceivedFile } from '../services/log-storage.service';
+import { uploadLog } from '../services/logs.service';
+import { createTable } from '../services/tables.service';
+import { addVehicle } from '../services/vehicles.service';
+import { vehicles } from '../../db/schema';
 
 /** One simulated session of a demo vehicle. */
 interface DemoSession {

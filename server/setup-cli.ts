@@ -1,6 +1,6 @@
 // `npm start` and `npm test` run this: apply migrations, then (unless --no-seed) seed the demo.
-import { loadConfig } from '../server/config';
-import { openDatabase } from '../server/db';
+import { loadConfig } from './config';
+import { openDatabase } from './db';
 import { runMigrations } from './migrate';
 import { demoPassword } from './seed/demo-shop';
 import { seedDemoGarage } from './seed/demo-garage';
