@@ -20,6 +20,7 @@ import { NgxEchartsDirective } from 'ngx-echarts';
 import { Subject, debounceTime, distinctUntilChanged, finalize, map, of, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../../core/api/api-error';
 import { LogsApi } from '../../core/api/logs-api';
+import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { ThemePreference } from '../../core/theme/theme-preference';
 import { provideCharts } from '../../shared/charts/provide-charts';
 import {
@@ -28,7 +29,7 @@ import {
   type ChartColours,
   type ZoomPercent,
 } from './series-chart-option';
-import { mergeWindow, zoomWindow } from './series-view';
+import { mergeWindow, seriesInDisplayUnits, zoomWindow } from './series-view';
 
 /** Buckets asked for, for the whole log and for a zoomed window alike. */
 const POINTS = 1500;
@@ -80,6 +81,7 @@ function readChartColours(probes: HTMLElement, view: Window): ChartColours {
 export class LogSeriesChart {
   private readonly api = inject(LogsApi);
   private readonly theme = inject(ThemePreference);
+  private readonly preferences = inject(DisplayPreferences);
   private readonly destroyRef = inject(DestroyRef);
   private readonly view = inject(DOCUMENT).defaultView;
 
@@ -87,6 +89,8 @@ export class LogSeriesChart {
   readonly logId = input.required<string>();
   /** The revision the log's ECU ran, if recorded (to say which VE the delay came from). */
   readonly ecuRevisionId = input<string | null>(null);
+  /** The vehicle's stoichiometric AFR, to draw AFR for users who read it (null: lambda). */
+  readonly stoichAfr = input<number | null>(null);
 
   /** The whole log, bucketed. */
   protected readonly overview = rxResource({
@@ -119,7 +123,19 @@ export class LogSeriesChart {
     const shown = this.shown();
     const colours = this.colours();
     if (shown === null || colours === null || !this.overview.hasValue()) return null;
-    return seriesChartOption(shown, this.overview.value().rangeS, colours, this.zoom);
+    const display = seriesInDisplayUnits(
+      shown,
+      this.preferences.units(),
+      this.preferences.mixture(),
+      this.stoichAfr(),
+    );
+    return seriesChartOption(
+      display.series,
+      this.overview.value().rangeS,
+      colours,
+      this.zoom,
+      display.labels,
+    );
   });
 
   /** The chart's height for its panels. */

@@ -6,6 +6,7 @@ import {
   seriesChartOption,
   type ChartColours,
 } from './series-chart-option';
+import { seriesInDisplayUnits } from './series-view';
 
 const COLOURS: ChartColours = {
   text: 'rgb(60, 60, 60)',
@@ -92,5 +93,38 @@ describe('series chart option', () => {
     expect(option.xAxis).toEqual(
       expect.arrayContaining([expect.objectContaining({ min: 0, max: 10 })]),
     );
+  });
+});
+
+describe('series chart in the user units', () => {
+  it('When the user reads imperial and AFR, then the MAP axis is in psi(a) and lambda reads AFR', () => {
+    const display = seriesInDisplayUnits(SERIES, 'imperial', 'afr', 14.7);
+    const option = seriesChartOption(
+      display.series,
+      [0, 3],
+      COLOURS,
+      { start: 0, end: 100 },
+      display.labels,
+    );
+    const yAxes = option.yAxis as { name?: string }[];
+    expect(yAxes.map((axis) => axis.name)).toEqual([
+      'RPM',
+      'MAP, psi(a)',
+      'AFR',
+      'Throttle, %',
+      'Kept, %',
+    ]);
+    const map = linesOf(display.series).find((s) => s.id === 'map-mean');
+    // 31 kPa is 4.496 psi (1 psi = 6.894757 kPa, NIST SP 811 App. B.8 [S*], as reference.md §4).
+    expect((map?.data as number[][])[0]?.[1]).toBeCloseTo(31 / 6.894757293, 6);
+    const lambda = linesOf(display.series).find((s) => s.id === 'lambda-mean');
+    expect((lambda?.data as number[][])[0]?.[1]).toBeCloseTo(1.01 * 14.7, 9);
+  });
+
+  it('When the user reads metric and lambda, then nothing changes', () => {
+    const display = seriesInDisplayUnits(SERIES, 'metric', 'lambda', 14.7);
+    expect(display.series.channels.mapKpa).toEqual(SERIES.channels.mapKpa);
+    expect(display.labels.pressureUnit).toBe('kPa');
+    expect(display.labels.mixture).toBe('Lambda');
   });
 });

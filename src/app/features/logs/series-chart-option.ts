@@ -7,7 +7,13 @@ import type {
   TooltipComponentOption,
 } from 'echarts/components';
 import type { ComposeOption } from 'echarts/core';
-import { keptSpans, tooltipLines, withAlpha } from './series-view';
+import {
+  keptSpans,
+  METRIC_SERIES_LABELS,
+  tooltipLines,
+  withAlpha,
+  type SeriesLabels,
+} from './series-view';
 
 /** The chart's option, typed with the parts of ECharts it uses. */
 export type SeriesChartOption = ComposeOption<
@@ -69,11 +75,14 @@ const GAP_PX = 30;
 const SLIDER_PX = 28;
 
 /** The panels a series needs: throttle only when logged, the kept strip only with a filter. */
-export function chartPanels(series: LogSeries): Panel[] {
+export function chartPanels(
+  series: LogSeries,
+  labels: SeriesLabels = METRIC_SERIES_LABELS,
+): Panel[] {
   const panels: Panel[] = [
     { id: 'rpm', name: 'RPM', heightPx: PANEL_PX },
-    { id: 'map', name: 'MAP, kPa', heightPx: PANEL_PX },
-    { id: 'lambda', name: 'Lambda', heightPx: PANEL_PX },
+    { id: 'map', name: `MAP, ${labels.pressureUnit}`, heightPx: PANEL_PX },
+    { id: 'lambda', name: labels.mixture, heightPx: PANEL_PX },
   ];
   if (series.channels.throttlePct) {
     panels.push({ id: 'throttle', name: 'Throttle, %', heightPx: PANEL_PX });
@@ -171,8 +180,9 @@ export function seriesChartOption(
   rangeS: readonly [number, number],
   colours: ChartColours,
   zoom: ZoomPercent,
+  labels: SeriesLabels = METRIC_SERIES_LABELS,
 ): SeriesChartOption {
-  const panels = chartPanels(series);
+  const panels = chartPanels(series, labels);
   const { timeS, channels } = series;
   const spans = series.kept ? keptSpans(timeS, series.kept) : [];
   const shade = series.kept ? { spans, colour: withAlpha(colours.kept, 0.1) } : null;
@@ -262,7 +272,7 @@ export function seriesChartOption(
       textStyle: { color: colours.tooltipText, fontSize: 12 },
       formatter: (params) => {
         const first = Array.isArray(params) ? params[0] : params;
-        return first ? tooltipLines(series, first.dataIndex).join('\n') : '';
+        return first ? tooltipLines(series, first.dataIndex, labels).join('\n') : '';
       },
     },
     dataZoom: [

@@ -1,4 +1,6 @@
 import type { LogSeries, SeriesEnvelope } from '@shared/contracts/logs';
+import type { MixtureDisplay, UnitSystem } from '@shared/contracts/preferences';
+import { mixtureToDisplay, toDisplay, unitLabel } from '../../shared/units/display-units';
 
 /**
  * Pure helpers of the log chart: the stretches the filter keeps, a zoomed-in window spliced into
@@ -138,14 +140,18 @@ function envelopeText(env: SeriesEnvelope, k: number, digits: number): string {
 }
 
 /** The tooltip's lines for point `k`: time, each channel as mean (min–max), kept share. */
-export function tooltipLines(series: LogSeries, k: number): string[] {
+export function tooltipLines(
+  series: LogSeries,
+  k: number,
+  labels: SeriesLabels = METRIC_SERIES_LABELS,
+): string[] {
   const c = series.channels;
   const lines = [
     `${figure(series.timeS[k], 2)} s`,
     `RPM ${envelopeText(c.rpm, k, 0)}`,
-    `MAP ${envelopeText(c.mapKpa, k, 1)} kPa`,
-    `Lambda measured ${envelopeText(c.lambda, k, 3)}`,
-    `Lambda commanded ${envelopeText(c.lambdaTarget, k, 3)}`,
+    `MAP ${envelopeText(c.mapKpa, k, labels.pressureDigits)} ${labels.pressureUnit}`,
+    `${labels.mixture} measured ${envelopeText(c.lambda, k, labels.mixtureDigits)}`,
+    `${labels.mixture} commanded ${envelopeText(c.lambdaTarget, k, labels.mixtureDigits)}`,
   ];
   if (c.throttlePct) lines.push(`Throttle ${envelopeText(c.throttlePct, k, 1)} %`);
   const kept = series.kept?.[k];
@@ -153,4 +159,65 @@ export function tooltipLines(series: LogSeries, k: number): string[] {
     lines.push(`Kept by the filter ${Math.round(kept * 100)} %`);
   }
   return lines;
+}
+
+/** How the chart names and rounds the pressure and mixture it draws. */
+export interface SeriesLabels {
+  /** Pressure unit, e.g. "kPa" or "psi(a)". */
+  readonly pressureUnit: string;
+  /** Decimals of a pressure figure. */
+  readonly pressureDigits: number;
+  /** "Lambda" or "AFR". */
+  readonly mixture: string;
+  /** Decimals of a mixture figure. */
+  readonly mixtureDigits: number;
+}
+
+/** The labels of a series left in the API's units (kPa, lambda). */
+export const METRIC_SERIES_LABELS: SeriesLabels = {
+  pressureUnit: 'kPa',
+  pressureDigits: 1,
+  mixture: 'Lambda',
+  mixtureDigits: 3,
+};
+
+/** An envelope with every figure passed through `convert` (nulls stay null). */
+function convertEnvelope(env: SeriesEnvelope, convert: (v: number) => number): SeriesEnvelope {
+  const each = (values: readonly (number | null)[]) =>
+    values.map((v) => (v === null ? null : convert(v)));
+  return { min: each(env.min), max: each(env.max), mean: each(env.mean) };
+}
+
+/**
+ * A series in the user's units: MAP in psi(a) for imperial, lambda and its target as AFR (with
+ * the vehicle's stoichiometric ratio) when the user reads AFR; RPM, throttle and the kept share
+ * are the same in every display. Without a stoichiometric ratio, mixture stays lambda.
+ */
+export function seriesInDisplayUnits(
+  series: LogSeries,
+  units: UnitSystem,
+  mixture: MixtureDisplay,
+  stoichAfr: number | null,
+): { readonly series: LogSeries; readonly labels: SeriesLabels } {
+  const afr = mixture === 'afr' && stoichAfr !== null;
+  const toMixture = (lambda: number) =>
+    afr ? mixtureToDisplay(lambda, 'afr', stoichAfr as number) : lambda;
+  const c = series.channels;
+  return {
+    series: {
+      ...series,
+      channels: {
+        ...c,
+        mapKpa: convertEnvelope(c.mapKpa, (kpa) => toDisplay('pressure', kpa, units)),
+        lambda: convertEnvelope(c.lambda, toMixture),
+        lambdaTarget: convertEnvelope(c.lambdaTarget, toMixture),
+      },
+    },
+    labels: {
+      pressureUnit: unitLabel('pressure', units),
+      pressureDigits: units === 'imperial' ? 2 : 1,
+      mixture: afr ? 'AFR' : 'Lambda',
+      mixtureDigits: afr ? 2 : 3,
+    },
+  };
 }
