@@ -1,5 +1,5 @@
-import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
-import { logChannels, logs, revisions, vehicles, veTables, type LogRow } from '../../db/schema';
+import { and, desc, eq, inArray } from 'drizzle-orm';
+import { logChannels, logs, vehicles, type LogRow } from '../../db/schema';
 import type {
   LogError,
   LogKind,
@@ -36,49 +36,6 @@ function toLog(row: LogRow): LogResource {
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
   };
-}
-
-/** What parsing needs to know about a vehicle. */
-export interface VehicleFacts {
-  /** The vehicle's id. */
-  id: string;
-  /** The fuel's stoichiometric AFR, to turn AFR columns into lambda. */
-  stoichAfr: number;
-  /** Engine displacement, litres: the airflow behind the wideband delay. */
-  displacementL: number;
-}
-
-/** A vehicle of a shop with the facts parsing needs, or null when it is not in that shop. */
-export async function findVehicleFacts(
-  db: Executor,
-  shopId: string,
-  vehicleId: string,
-): Promise<VehicleFacts | null> {
-  const [row] = await db
-    .select({
-      id: vehicles.id,
-      stoichAfr: vehicles.stoichAfr,
-      displacementL: vehicles.displacementL,
-    })
-    .from(vehicles)
-    .where(and(eq(vehicles.shopId, shopId), eq(vehicles.id, vehicleId)))
-    .limit(1);
-  return row ?? null;
-}
-
-/** The vehicle whose table a revision of a shop belongs to, or null when it is not in that shop. */
-export async function findRevisionVehicleId(
-  db: Executor,
-  shopId: string,
-  revisionId: string,
-): Promise<string | null> {
-  const [row] = await db
-    .select({ vehicleId: veTables.vehicleId })
-    .from(revisions)
-    .innerJoin(veTables, eq(veTables.id, revisions.tableId))
-    .where(and(eq(revisions.shopId, shopId), eq(revisions.id, revisionId)))
-    .limit(1);
-  return row?.vehicleId ?? null;
 }
 
 /** The id of a vehicle's log with this file content (SHA-256), or null. */
@@ -293,66 +250,4 @@ export async function listUnfinishedLogs(db: Executor): Promise<UnfinishedLog[]>
     .from(logs)
     .where(inArray(logs.status, ['queued', 'parsing']))
     .orderBy(logs.createdAt);
-}
-
-/** A revision's values on its table's axes: the VE table an ECU ran. */
-export interface RevisionTable {
-  /** The revision. */
-  revisionId: string;
-  /** The vehicle whose table it is. */
-  vehicleId: string;
-  /** RPM breakpoints. */
-  rpmAxis: number[];
-  /** MAP breakpoints, kPa. */
-  mapAxisKpa: number[];
-  /** VE in percent, rows following `mapAxisKpa`. */
-  values: number[][];
-}
-
-const revisionTableColumns = {
-  revisionId: revisions.id,
-  vehicleId: veTables.vehicleId,
-  rpmAxis: veTables.rpmAxis,
-  mapAxisKpa: veTables.mapAxisKpa,
-  values: revisions.values,
-};
-
-/** A revision of a shop with its table's axes, or null when it is not in that shop. */
-export async function findRevisionTable(
-  db: Executor,
-  shopId: string,
-  revisionId: string,
-): Promise<RevisionTable | null> {
-  const [row] = await db
-    .select(revisionTableColumns)
-    .from(revisions)
-    .innerJoin(veTables, eq(veTables.id, revisions.tableId))
-    .where(and(eq(revisions.shopId, shopId), eq(revisions.id, revisionId)))
-    .limit(1);
-  return row ?? null;
-}
-
-/**
- * The head revision of a vehicle's first table (oldest first, as the vehicle page lists them),
- * or null when the vehicle has no table with a revision. A table whose head is not recorded
- * gives its highest-numbered revision.
- */
-export async function findFirstTableHead(
-  db: Executor,
-  shopId: string,
-  vehicleId: string,
-): Promise<RevisionTable | null> {
-  const [row] = await db
-    .select(revisionTableColumns)
-    .from(veTables)
-    .innerJoin(revisions, eq(revisions.tableId, veTables.id))
-    .where(and(eq(veTables.shopId, shopId), eq(veTables.vehicleId, vehicleId)))
-    .orderBy(
-      asc(veTables.createdAt),
-      asc(veTables.id),
-      desc(sql`${revisions.id} = ${veTables.headRevisionId}`),
-      desc(revisions.number),
-    )
-    .limit(1);
-  return row ?? null;
 }

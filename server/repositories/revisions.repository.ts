@@ -1,5 +1,5 @@
-import { and, asc, eq, max } from 'drizzle-orm';
-import { revisions, users } from '../../db/schema';
+import { and, asc, desc, eq, max, sql } from 'drizzle-orm';
+import { revisions, users, veTables } from '../../db/schema';
 import {
   appliedRecordSchema,
   type AppliedRecord,
@@ -117,4 +117,81 @@ export async function findLastRevisionNumber(
     .from(revisions)
     .where(and(eq(revisions.shopId, shopId), eq(revisions.tableId, tableId)));
   return row?.last ?? 0;
+}
+
+/** The vehicle whose table a revision of a shop belongs to, or null when it is not in that shop. */
+export async function findRevisionVehicleId(
+  db: Executor,
+  shopId: string,
+  revisionId: string,
+): Promise<string | null> {
+  const [row] = await db
+    .select({ vehicleId: veTables.vehicleId })
+    .from(revisions)
+    .innerJoin(veTables, eq(veTables.id, revisions.tableId))
+    .where(and(eq(revisions.shopId, shopId), eq(revisions.id, revisionId)))
+    .limit(1);
+  return row?.vehicleId ?? null;
+}
+
+/** A revision's values on its table's axes: the VE table an ECU ran. */
+export interface RevisionTable {
+  /** The revision. */
+  revisionId: string;
+  /** The vehicle whose table it is. */
+  vehicleId: string;
+  /** RPM breakpoints. */
+  rpmAxis: number[];
+  /** MAP breakpoints, kPa. */
+  mapAxisKpa: number[];
+  /** VE in percent, rows following `mapAxisKpa`. */
+  values: number[][];
+}
+
+const revisionTableColumns = {
+  revisionId: revisions.id,
+  vehicleId: veTables.vehicleId,
+  rpmAxis: veTables.rpmAxis,
+  mapAxisKpa: veTables.mapAxisKpa,
+  values: revisions.values,
+};
+
+/** A revision of a shop with its table's axes, or null when it is not in that shop. */
+export async function findRevisionTable(
+  db: Executor,
+  shopId: string,
+  revisionId: string,
+): Promise<RevisionTable | null> {
+  const [row] = await db
+    .select(revisionTableColumns)
+    .from(revisions)
+    .innerJoin(veTables, eq(veTables.id, revisions.tableId))
+    .where(and(eq(revisions.shopId, shopId), eq(revisions.id, revisionId)))
+    .limit(1);
+  return row ?? null;
+}
+
+/**
+ * The head revision of a vehicle's first table (oldest first, as the vehicle page lists them),
+ * or null when the vehicle has no table with a revision. A table whose head is not recorded
+ * gives its highest-numbered revision.
+ */
+export async function findFirstTableHead(
+  db: Executor,
+  shopId: string,
+  vehicleId: string,
+): Promise<RevisionTable | null> {
+  const [row] = await db
+    .select(revisionTableColumns)
+    .from(veTables)
+    .innerJoin(revisions, eq(revisions.tableId, veTables.id))
+    .where(and(eq(veTables.shopId, shopId), eq(veTables.vehicleId, vehicleId)))
+    .orderBy(
+      asc(veTables.createdAt),
+      asc(veTables.id),
+      desc(sql`${revisions.id} = ${veTables.headRevisionId}`),
+      desc(revisions.number),
+    )
+    .limit(1);
+  return row ?? null;
 }

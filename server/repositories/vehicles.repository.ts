@@ -148,3 +148,31 @@ export async function updateVehicle(
     .returning();
   return row ? toVehicle(row) : null;
 }
+
+/** What parsing needs to know about a vehicle. */
+export interface VehicleFacts {
+  /** The vehicle's id. */
+  id: string;
+  /** The fuel's stoichiometric AFR, to turn AFR columns into lambda. */
+  stoichAfr: number;
+  /** Engine displacement, litres: the airflow behind the wideband delay. */
+  displacementL: number;
+}
+
+/** A vehicle of a shop with the facts parsing needs, or null when it is not in that shop. */
+export async function findVehicleFacts(
+  db: Executor,
+  shopId: string,
+  vehicleId: string,
+): Promise<VehicleFacts | null> {
+  const [row] = await db
+    .select({
+      id: vehicles.id,
+      stoichAfr: vehicles.stoichAfr,
+      displacementL: vehicles.displacementL,
+    })
+    .from(vehicles)
+    .where(and(eq(vehicles.shopId, shopId), eq(vehicles.id, vehicleId)))
+    .limit(1);
+  return row ?? null;
+}

@@ -6,26 +6,16 @@ import {
   mappingPresetListQuerySchema,
   mappingPresetParamSchema,
   uploadLogFieldsSchema,
-  type LogSeriesQuery,
-  type MappingPresetListQuery,
-  type UploadLogFields,
 } from '../../shared/contracts/logs';
 import type { AppContext } from '../context';
 import { currentUser, requireRoles, requireSignedIn } from '../middleware/auth';
 import { receiveLogUpload } from '../middleware/log-upload';
-import { validate, validated } from '../middleware/validate';
+import { handle } from '../middleware/validate';
 import { receivedFileOf } from '../services/log-storage.service';
 import { getLogSeries } from '../services/log-series';
-import {
-  getLog,
-  getMappingPreset,
-  listMappingPresets,
-  listVehicleLogs,
-  requireVehicle,
-  uploadLog,
-} from '../services/logs.service';
-
-type IdParams = { id: string };
+import { uploadLog } from '../services/log-upload.service';
+import { getLog, listVehicleLogs, requireVehicle } from '../services/logs.service';
+import { getMappingPreset, listMappingPresets } from '../services/mapping-presets.service';
 
 /**
  * Log routes: upload (multipart, parsed in the background), one log, a vehicle's logs, a log's
@@ -37,76 +27,65 @@ export function logRoutes(ctx: AppContext): Router {
   router.post(
     '/vehicles/:id/logs',
     requireRoles('tuner', 'operator'),
-    validate({ params: logVehicleParamSchema }),
     // Before reading the file: another shop's vehicle is refused without receiving it.
-    async (req, res, next) => {
-      await requireVehicle(
-        ctx.db,
-        currentUser(req),
-        validated<unknown, unknown, IdParams>(res).params.id,
-      );
+    ...handle({ params: logVehicleParamSchema }, async ({ params }, req, _res, next) => {
+      await requireVehicle(ctx.db, currentUser(req), params.id);
       next();
-    },
+    }),
     receiveLogUpload(ctx.config),
     // The text fields exist only now; `validate` replaces what it parsed, so params go again.
-    validate({ params: logVehicleParamSchema, body: uploadLogFieldsSchema }),
-    async (req, res) => {
-      const { params, body } = validated<UploadLogFields, unknown, IdParams>(res);
-      const file = receivedFileOf(req.file);
-      res.status(202).json(await uploadLog(ctx, currentUser(req), params.id, body, file));
-    },
+    ...handle(
+      { params: logVehicleParamSchema, body: uploadLogFieldsSchema },
+      async ({ params, body }, req, res) => {
+        const file = receivedFileOf(req.file);
+        res.status(202).json(await uploadLog(ctx, currentUser(req), params.id, body, file));
+      },
+    ),
   );
 
   router.get(
     '/vehicles/:id/logs',
     requireSignedIn,
-    validate({ params: logVehicleParamSchema }),
-    async (req, res) => {
-      const { params } = validated<unknown, unknown, IdParams>(res);
+    ...handle({ params: logVehicleParamSchema }, async ({ params }, req, res) => {
       const items = await listVehicleLogs(ctx.db, currentUser(req), params.id);
       res.json({ items, total: items.length });
-    },
+    }),
   );
 
   router.get(
     '/logs/:id',
     requireSignedIn,
-    validate({ params: logIdParamSchema }),
-    async (req, res) => {
-      const { params } = validated<unknown, unknown, IdParams>(res);
+    ...handle({ params: logIdParamSchema }, async ({ params }, req, res) => {
       res.json(await getLog(ctx.db, currentUser(req), params.id));
-    },
+    }),
   );
 
   router.get(
     '/logs/:id/series',
     requireSignedIn,
-    validate({ params: logIdParamSchema, query: logSeriesQuerySchema }),
-    async (req, res) => {
-      const { params, query } = validated<unknown, LogSeriesQuery, IdParams>(res);
-      res.json(await getLogSeries(ctx.db, currentUser(req), params.id, query));
-    },
+    ...handle(
+      { params: logIdParamSchema, query: logSeriesQuerySchema },
+      async ({ params, query }, req, res) => {
+        res.json(await getLogSeries(ctx.db, currentUser(req), params.id, query));
+      },
+    ),
   );
 
   router.get(
     '/mapping-presets',
     requireSignedIn,
-    validate({ query: mappingPresetListQuerySchema }),
-    async (req, res) => {
-      const { query } = validated<unknown, MappingPresetListQuery>(res);
+    ...handle({ query: mappingPresetListQuerySchema }, async ({ query }, req, res) => {
       const items = await listMappingPresets(ctx.db, currentUser(req), query.signature);
       res.json({ items, total: items.length });
-    },
+    }),
   );
 
   router.get(
     '/mapping-presets/:signature',
     requireSignedIn,
-    validate({ params: mappingPresetParamSchema }),
-    async (req, res) => {
-      const { params } = validated<unknown, unknown, { signature: string }>(res);
+    ...handle({ params: mappingPresetParamSchema }, async ({ params }, req, res) => {
       res.json(await getMappingPreset(ctx.db, currentUser(req), params.signature));
-    },
+    }),
   );
 
   return router;

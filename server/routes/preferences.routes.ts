@@ -1,11 +1,8 @@
 import { Router } from 'express';
-import {
-  updateDisplayPreferencesSchema,
-  type UpdateDisplayPreferencesRequest,
-} from '../../shared/contracts/preferences';
+import { updateDisplayPreferencesSchema } from '../../shared/contracts/preferences';
 import type { AppContext } from '../context';
 import { currentUser, requireSignedIn } from '../middleware/auth';
-import { validate, validated } from '../middleware/validate';
+import { handle } from '../middleware/validate';
 import { changePreferences, getPreferences } from '../services/preferences.service';
 
 /**
@@ -22,11 +19,9 @@ export function preferenceRoutes(ctx: AppContext): Router {
   router.patch(
     '/me/preferences',
     requireSignedIn,
-    validate({ body: updateDisplayPreferencesSchema }),
-    async (req, res) => {
-      const { body } = validated<UpdateDisplayPreferencesRequest>(res);
+    ...handle({ body: updateDisplayPreferencesSchema }, async ({ body }, req, res) => {
       res.json(await changePreferences(ctx.db, currentUser(req), body));
-    },
+    }),
   );
 
   return router;

@@ -3,13 +3,10 @@ import {
   compareRevisionsQuerySchema,
   exportRevisionQuerySchema,
   revisionIdParamSchema,
-  type CompareRevisionsQuery,
-  type ExportRevisionQuery,
-  type IdParams,
 } from '../../shared/contracts/tables';
 import type { AppContext } from '../context';
 import { currentUser, requireSignedIn } from '../middleware/auth';
-import { validate, validated } from '../middleware/validate';
+import { handle } from '../middleware/validate';
 import { compareRevisions, exportRevision, getRevision } from '../services/revisions.service';
 
 /** Reading revisions: one with its values, its export as a file, and two compared. */
@@ -20,33 +17,30 @@ export function revisionRoutes(ctx: AppContext): Router {
   router.get(
     '/revisions/compare',
     requireSignedIn,
-    validate({ query: compareRevisionsQuerySchema }),
-    async (req, res) => {
-      const { query } = validated<unknown, CompareRevisionsQuery>(res);
+    ...handle({ query: compareRevisionsQuerySchema }, async ({ query }, req, res) => {
       res.json(await compareRevisions(ctx.db, currentUser(req), query));
-    },
+    }),
   );
 
   router.get(
     '/revisions/:id',
     requireSignedIn,
-    validate({ params: revisionIdParamSchema }),
-    async (req, res) => {
-      const { params } = validated<unknown, unknown, IdParams>(res);
+    ...handle({ params: revisionIdParamSchema }, async ({ params }, req, res) => {
       res.json(await getRevision(ctx.db, currentUser(req), params.id));
-    },
+    }),
   );
 
   router.get(
     '/revisions/:id/export',
     requireSignedIn,
-    validate({ params: revisionIdParamSchema, query: exportRevisionQuerySchema }),
-    async (req, res) => {
-      const { params, query } = validated<unknown, ExportRevisionQuery, IdParams>(res);
-      const file = await exportRevision(ctx.db, currentUser(req), params.id, query.format);
-      res.attachment(file.fileName);
-      res.type(file.contentType).send(file.text);
-    },
+    ...handle(
+      { params: revisionIdParamSchema, query: exportRevisionQuerySchema },
+      async ({ params, query }, req, res) => {
+        const file = await exportRevision(ctx.db, currentUser(req), params.id, query.format);
+        res.attachment(file.fileName);
+        res.type(file.contentType).send(file.text);
+      },
+    ),
   );
 
   return router;

@@ -3,13 +3,11 @@ import {
   createInvitationRequestSchema,
   idParamSchema,
   updateMemberRequestSchema,
-  type CreateInvitationRequest,
-  type UpdateMemberRequest,
 } from '../../shared/contracts/team';
 import type { AppContext } from '../context';
 import { AppError } from '../errors/app-error';
 import { currentUser, requireRoles } from '../middleware/auth';
-import { validate, validated } from '../middleware/validate';
+import { handle } from '../middleware/validate';
 import { readCapturedMail } from '../mail/mailbox';
 import { changeMember, listShopMembers } from '../services/team.service';
 import {
@@ -30,11 +28,12 @@ export function teamRoutes(ctx: AppContext): Router {
 
   router.patch(
     '/team/members/:id',
-    validate({ params: idParamSchema, body: updateMemberRequestSchema }),
-    async (req, res) => {
-      const { params, body } = validated<UpdateMemberRequest, unknown, { id: string }>(res);
-      res.json(await changeMember(ctx.db, currentUser(req), params.id, body));
-    },
+    ...handle(
+      { params: idParamSchema, body: updateMemberRequestSchema },
+      async ({ params, body }, req, res) => {
+        res.json(await changeMember(ctx.db, currentUser(req), params.id, body));
+      },
+    ),
   );
 
   router.get('/team/invitations', async (req, res) => {
@@ -44,18 +43,18 @@ export function teamRoutes(ctx: AppContext): Router {
 
   router.post(
     '/team/invitations',
-    validate({ body: createInvitationRequestSchema }),
-    async (req, res) => {
-      const { body } = validated<CreateInvitationRequest>(res);
+    ...handle({ body: createInvitationRequestSchema }, async ({ body }, req, res) => {
       res.status(201).json(await inviteMember(ctx, currentUser(req), body));
-    },
+    }),
   );
 
-  router.delete('/team/invitations/:id', validate({ params: idParamSchema }), async (req, res) => {
-    const { params } = validated<unknown, unknown, { id: string }>(res);
-    await revokeInvitation(ctx, currentUser(req), params.id);
-    res.status(204).end();
-  });
+  router.delete(
+    '/team/invitations/:id',
+    ...handle({ params: idParamSchema }, async ({ params }, req, res) => {
+      await revokeInvitation(ctx, currentUser(req), params.id);
+      res.status(204).end();
+    }),
+  );
 
   router.get('/dev/mail', async (req, res) => {
     if (!ctx.capturedMailDir) {

@@ -17,14 +17,11 @@ import type { SimVehicle } from '../../shared/sim/sim-vehicle';
 import type { AppConfig } from '../config';
 import type { AppContext } from '../context';
 import type { Database } from '../db';
-import {
-  findSignInCandidate,
-  type SessionUserRecord,
-} from '../repositories/users.repository';
+import { findSignInCandidate, type SessionUserRecord } from '../repositories/users.repository';
 import { createAnalysis } from '../services/analyses.service';
 import { parseStoredLog } from '../services/log-parse.service';
 import { uploadTmpDir, type ReceivedFile } from '../services/log-storage.service';
-import { uploadLog } from '../services/logs.service';
+import { uploadLog } from '../services/log-upload.service';
 import { createTable } from '../services/tables.service';
 import { addVehicle } from '../services/vehicles.service';
 import { vehicles } from '../../db/schema';

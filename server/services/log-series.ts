@@ -11,13 +11,13 @@ import { bucketSeries, seriesWindow, type ChannelEnvelope } from '../../shared/s
 import type { Database } from '../db';
 import { conflict, notFound } from '../errors/app-error';
 import { invalidInput } from '../errors/invalid-input';
+import { findLog } from '../repositories/logs.repository';
 import {
   findFirstTableHead,
-  findLog,
   findRevisionTable,
-  findVehicleFacts,
   type RevisionTable,
-} from '../repositories/logs.repository';
+} from '../repositories/revisions.repository';
+import { findVehicleFacts } from '../repositories/vehicles.repository';
 import type { SessionUserRecord } from '../repositories/users.repository';
 import { loadLogChannels } from './logs.service';
 

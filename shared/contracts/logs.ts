@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idParam } from './id-param';
 import { CHANNELS } from '../core/channels';
 import {
   CHANNEL_UNITS,
@@ -9,10 +10,10 @@ import {
 import { isImportError } from '../import/import-error';
 
 /** A log's id in a path (`/logs/:id`). */
-export const logIdParamSchema = z.object({ id: z.uuid('log id must be a UUID') });
+export const logIdParamSchema = idParam('log');
 
 /** A vehicle's id in a path (`/vehicles/:id/logs`). */
-export const logVehicleParamSchema = z.object({ id: z.uuid('vehicle id must be a UUID') });
+export const logVehicleParamSchema = idParam('vehicle');
 
 /** Road drive or dyno session. */
 export const LOG_KINDS = ['road', 'dyno'] as const;

@@ -1,14 +1,15 @@
 import { z } from 'zod';
+import { idParam } from './id-param';
 import { validateAxis, validateTable } from '../core/table';
 
 /** A table id in a path (`/tables/:id`). */
-export const tableIdParamSchema = z.object({ id: z.uuid('table id must be a UUID') });
+export const tableIdParamSchema = idParam('table');
 
 /** A revision id in a path (`/revisions/:id`). */
-export const revisionIdParamSchema = z.object({ id: z.uuid('revision id must be a UUID') });
+export const revisionIdParamSchema = idParam('revision');
 
 /** An id in a path, once parsed. */
-export type IdParams = z.infer<typeof tableIdParamSchema>;
+export type { IdParams } from './id-param';
 
 /** The most breakpoints an axis may have (ECU tables are 8 to 32 wide; leave room). */
 export const MAX_BREAKPOINTS = 64;

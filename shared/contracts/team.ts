@@ -1,9 +1,10 @@
 import { z } from 'zod';
+import { idParam } from './id-param';
 import { newPasswordSchema } from './auth';
 import { rolesSchema, roleSchema } from './roles';
 
 /** An id in a path: a UUID. */
-export const idParamSchema = z.object({ id: z.uuid('id must be a UUID') });
+export const idParamSchema = idParam();
 
 /** A member of the signed-in user's shop. */
 export const memberSchema = z.object({

@@ -1,8 +1,9 @@
 import { z } from 'zod';
+import { idParam } from './id-param';
 import { FUELS, STOICH_AFR, type Fuel } from '../units/fuels';
 
 /** A vehicle id in a path (`/vehicles/:id`). */
-export const vehicleIdParamSchema = z.object({ id: z.uuid('vehicle id must be a UUID') });
+export const vehicleIdParamSchema = idParam('vehicle');
 
 /** A vehicle id in a path. */
 export type VehicleIdParams = z.infer<typeof vehicleIdParamSchema>;
