@@ -46,7 +46,8 @@ export async function listAnalysesOfTable(
       settings: analyses.settings,
       createdAt: analyses.createdAt,
       trustedCells: sql<number>`coalesce((${analyses.filterReport}->>'cellsTrusted')::int, 0)`,
-      leanFlagCount: sql<number>`jsonb_array_length(${analyses.leanFlags})`,
+      // Only the loud flags: a 'watch' rests on too little data to act on.
+      leanFlagCount: sql<number>`(SELECT count(*) FROM jsonb_array_elements(${analyses.leanFlags}) AS f WHERE f->>'severity' IS DISTINCT FROM 'watch')`,
       authorName: users.name,
     })
     .from(analyses)

@@ -172,7 +172,7 @@ export interface AnalysisSummary {
   createdAt: string;
   /** Cells with enough data to be trusted. */
   trustedCells: number;
-  /** Cells flagged lean under load. */
+  /** Cells flagged lean under load as "stop" or "warning" ("watch" flags are left out). */
   leanFlagCount: number;
   /** Who ran it (null if that account is gone). */
   authorName: string | null;

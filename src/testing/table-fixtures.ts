@@ -27,6 +27,8 @@ export function revisionFixture(values: number[][]) {
     analysisId: null,
     createdAt: '2026-01-01T00:00:00Z',
     values,
+    // Saved from the grid, not applied from an analysis.
+    applied: null,
   };
 }
 
@@ -53,3 +55,16 @@ export function answerTableLoad(
     .expectOne((r) => r.method === 'GET' && r.url === `/api/tables/${table.id}/analyses`)
     .flush({ items: [], total: 0 });
 }
+
+/**
+ * The fuel-safety guard an analysis answers with when its logs hold no barometer: the default
+ * line, 90 % of standard sea-level pressure (101.325 kPa, rounded to 0.01 kPa as the server
+ * does), and the default 1 % allowance.
+ */
+export const ASSUMED_GUARD = {
+  loadLineKpa: 91.19,
+  loadLinePercentOfBaro: 90,
+  leanAllowancePercent: 1,
+  baroKpa: 101.325,
+  baroSource: 'assumed',
+} as const;

@@ -9,9 +9,23 @@ import type {
   CreateAnalysisRequest,
 } from '@shared/contracts/analyses';
 import type { ListResponse } from '@shared/contracts/errors';
-import type { Revision } from '@shared/contracts/tables';
+import type { AppliedGuard, Revision } from '@shared/contracts/tables';
 
 export type { AnalysisCell, AnalysisSamples, AnalysisSummary } from '@shared/contracts/analyses';
+
+/**
+ * The fuel-safety guard an apply of an analysis runs with by default: the vehicle's load line
+ * (a share of the barometric pressure the logs were recorded at) and lean allowance.
+ */
+export type AnalysisGuard = AppliedGuard;
+
+/** The barometric pressure an analysis found in its logs, and where it came from. */
+export interface AnalysisBaro {
+  /** Barometric pressure, kPa absolute. */
+  kpa: number;
+  /** The logs' barometer, MAP with the engine off, or assumed (standard sea-level pressure). */
+  source: AppliedGuard['baroSource'];
+}
 
 /** Paging of `GET /api/tables/:id/analyses`; absent fields take the server's defaults. */
 export interface AnalysisListQuery {
@@ -63,9 +77,18 @@ export interface LeanFlag {
   leanPercent: number;
   /** Worst single lean excursion, % (null when no sample under load touched it). */
   worstLeanPercent: number | null;
-  /** `abort` at the abort limit, else `warn`. */
-  severity: 'warn' | 'abort';
+  /** The cell's weight: how much data the flag rests on. */
+  weight: number;
+  /**
+   * `abort` ("stop": stop loading the engine there until it is richer), `warn` ("warning":
+   * richen it before the next full-load run), both on a cell with the weight a proposal trusts;
+   * `watch`: as lean, but on too little data to act on (log the cell again).
+   */
+  severity: LeanSeverity;
 }
+
+/** How loudly a lean flag is shown; see `LeanFlag.severity`. */
+export type LeanSeverity = 'watch' | 'warn' | 'abort';
 
 /** An analysis as `POST /api/tables/:id/analyses` and `GET /api/analyses/:id` answer it. */
 export interface AnalysisResource {
@@ -82,9 +105,17 @@ export interface AnalysisResource {
   /** Proposed VE `[row][col]`. */
   proposal: (number | null)[][];
   /** Per log: samples, kept, funnel and delay used. */
-  filterReport: { logs: LogFilterReport[]; samplesUsed?: number; cellsTrusted?: number };
-  /** Cells measured leaner than commanded under load, worst first. */
+  filterReport: {
+    logs: LogFilterReport[];
+    samplesUsed?: number;
+    cellsTrusted?: number;
+    /** The barometric pressure behind the guard's load line (absent on older analyses). */
+    baro?: AnalysisBaro;
+  };
+  /** Cells measured leaner than commanded under load: stop, then warning, then watch. */
   leanFlags: LeanFlag[];
+  /** The fuel-safety guard an apply uses unless the user turns it off (`guard: false`). */
+  guard: AnalysisGuard;
   /** When it ran. */
   createdAt: string;
 }
@@ -136,7 +167,10 @@ export class AnalysesApi {
     );
   }
 
-  /** `POST /api/analyses/:id/apply`: a new draft revision (parent: the analysis's base). */
+  /**
+   * `POST /api/analyses/:id/apply`: a new draft revision (parent: the analysis's base). The
+   * body's `guard: false` turns the fuel-safety guard off, which the revision records.
+   */
   apply(analysisId: string, body: ApplyAnalysisRequest): Observable<Revision> {
     return this.http.post<Revision>(`/api/analyses/${encodeURIComponent(analysisId)}/apply`, body);
   }

@@ -29,6 +29,7 @@ const VEHICLE = {
     injectorCcMin: 550,
   },
   gearing: { tireDiameterMm: 620, gearRatios: [3.5, 2, 1.4, 1, 0.8], finalDrive: 4 },
+  fuelSafety: { loadLinePercentOfBaro: 90, leanAllowancePercent: 1 },
   createdAt: '2026-03-01T10:00:00.000Z',
   updatedAt: '2026-03-01T10:00:00.000Z',
 } as Vehicle;

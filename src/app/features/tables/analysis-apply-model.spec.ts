@@ -6,10 +6,12 @@ import {
   type ApplyValue,
   applySettingsOf,
   defaultApplyValue,
+  previewSettingsOf,
   settingsOfAnalysis,
   toApplyBody,
 } from './analysis-apply-model';
 import { defaultSettingsValue, toSettingsBody } from './analysis-settings-model';
+import { loadGuardOf } from './proposal-preview-compute';
 
 describe('settingsOfAnalysis and applySettingsOf', () => {
   it.each<[string, object, AnalysisSettingsBody]>([
@@ -29,6 +31,23 @@ describe('settingsOfAnalysis and applySettingsOf', () => {
       applySettingsOf({ minWeight: 9, maxStepPercent: 8, maxSpread: 0.1, stepFraction: 0.3 }),
     ).toEqual({ minWeight: 9, maxStepPercent: 8, maxSpread: 0.1 });
   });
+
+  it('When a preview reads an analysis, then it takes the settings and the guard’s two figures', () => {
+    const guard = {
+      loadLineKpa: 88.2,
+      loadLinePercentOfBaro: 90,
+      leanAllowancePercent: 2,
+      baroKpa: 98,
+      baroSource: 'logged' as const,
+    };
+    expect(previewSettingsOf({ settings: { minWeight: 9, stepFraction: 0.3 }, guard })).toEqual({
+      minWeight: 9,
+      maxStepPercent: undefined,
+      maxSpread: undefined,
+      guard: { loadLineKpa: 88.2, leanAllowancePercent: 2 },
+    });
+    expect(previewSettingsOf({ settings: { minWeight: 9 } })).not.toHaveProperty('guard');
+  });
 });
 
 describe('toApplyBody', () => {
@@ -43,7 +62,16 @@ describe('toApplyBody', () => {
   });
 
   it.each<[string, ApplyValue, object]>([
-    ['all cells', value({}), { stepFraction: 0.5, smooth: 0.3, fill: true, lockedCells: [[0, 0]] }],
+    [
+      'all cells',
+      value({}),
+      { stepFraction: 0.5, smooth: 0.3, fill: true, guard: true, lockedCells: [[0, 0]] },
+    ],
+    [
+      'the guard turned off',
+      value({ guard: false }),
+      { stepFraction: 0.5, smooth: 0.3, fill: true, guard: false, lockedCells: [[0, 0]] },
+    ],
     [
       'only the selection, a reach and a message',
       value({ scope: 'selected', limitReach: true, maxReach: 3, message: '  third pull ' }),
@@ -51,6 +79,7 @@ describe('toApplyBody', () => {
         stepFraction: 0.5,
         smooth: 0.3,
         fill: true,
+        guard: true,
         maxReach: 3,
         lockedCells: [[0, 0]],
         onlyCells: [
@@ -63,7 +92,7 @@ describe('toApplyBody', () => {
     [
       'a reach with fill off',
       value({ fill: false, limitReach: true, maxReach: 3 }),
-      { stepFraction: 0.5, smooth: 0.3, fill: false, lockedCells: [[0, 0]] },
+      { stepFraction: 0.5, smooth: 0.3, fill: false, guard: true, lockedCells: [[0, 0]] },
     ],
   ])('When the options are %s, then the body is as expected and valid', (_, v, body) => {
     const result = toApplyBody(v, selected, locked);
@@ -100,6 +129,8 @@ describe('the apply defaults against the shared core', () => {
       smooth: body.smooth,
       fill: body.fill,
       ...applySettingsOf(toSettingsBody(defaultSettingsValue())),
+      // On, with no analysis guard named: the core's default guard, as an apply without options.
+      guard: loadGuardOf(undefined, body.guard),
     });
     expect(form.table.values).toEqual(plain.table.values);
     expect(plain.proposal.clamped.some((c) => c === 1)).toBe(true);

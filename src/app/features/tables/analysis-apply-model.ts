@@ -1,7 +1,7 @@
 import type { AnalysisSettingsBody, ApplyAnalysisRequest } from '@shared/contracts/analyses';
 import { optionalNumber } from './analysis-setting-ranges';
 import { CORE_DEFAULTS } from './analysis-settings-model';
-import type { CellRef, PreviewAnalysisSettings } from './proposal-preview-compute';
+import type { CellRef, PreviewAnalysisSettings, PreviewGuard } from './proposal-preview-compute';
 
 /**
  * The settings an analysis was run with, read defensively from the resource (the server sends
@@ -15,12 +15,32 @@ export function settingsOfAnalysis(analysis: object): AnalysisSettingsBody {
 }
 
 /** The settings the server's apply reads from a stored analysis (see applyStoredAnalysis). */
-export function applySettingsOf(settings: AnalysisSettingsBody): PreviewAnalysisSettings {
+export function applySettingsOf(
+  settings: AnalysisSettingsBody,
+): Omit<PreviewAnalysisSettings, 'guard'> {
   return {
     maxStepPercent: settings.maxStepPercent,
     minWeight: settings.minWeight,
     maxSpread: settings.maxSpread,
   };
+}
+
+/**
+ * The settings a preview of applying `analysis` reads: the analysis's own trust and step limits
+ * and its fuel-safety guard, as the server's apply takes them from the stored analysis.
+ */
+export function previewSettingsOf(analysis: {
+  readonly settings?: unknown;
+  readonly guard?: PreviewGuard;
+}): PreviewAnalysisSettings {
+  const settings = applySettingsOf(settingsOfAnalysis(analysis));
+  const guard = analysis.guard;
+  return guard
+    ? {
+        ...settings,
+        guard: { loadLineKpa: guard.loadLineKpa, leanAllowancePercent: guard.leanAllowancePercent },
+      }
+    : settings;
 }
 
 /** The apply options as the form holds them. */
@@ -33,6 +53,11 @@ export interface ApplyValue {
   smooth: number | null;
   /** Whether cells without trusted data take their neighbours' correction. */
   fill: boolean;
+  /**
+   * Whether the fuel-safety guard under load holds guessed cells a fill or smoothing would lean
+   * (on unless the user turns it off; off is recorded by the revision).
+   */
+  guard: boolean;
   /** Whether the fill stops `maxReach` cells away from trusted data. */
   limitReach: boolean;
   /** How far the fill reaches, cells (with `limitReach`). */
@@ -48,13 +73,17 @@ export function defaultApplyValue(settings: AnalysisSettingsBody = {}): ApplyVal
     stepFraction: settings.stepFraction ?? CORE_DEFAULTS.stepFraction,
     smooth: CORE_DEFAULTS.smooth,
     fill: true,
+    guard: true,
     limitReach: false,
     maxReach: 2,
     message: '',
   };
 }
 
-/** The body of `POST /api/analyses/:id/apply` for a form value, the selection and the locks. */
+/**
+ * The body of `POST /api/analyses/:id/apply` for a form value, the selection and the locks. The
+ * guard is always named: on is the safe choice and must not depend on the server's default.
+ */
 export function toApplyBody(
   value: ApplyValue,
   selected: readonly CellRef[],
@@ -65,6 +94,7 @@ export function toApplyBody(
     ...optionalNumber('stepFraction', value.stepFraction),
     ...optionalNumber('smooth', value.smooth),
     fill: value.fill,
+    guard: value.guard,
     ...(value.fill && value.limitReach ? optionalNumber('maxReach', value.maxReach) : {}),
     ...(locked.length > 0
       ? { lockedCells: locked.map(([r, c]) => [r, c] as [number, number]) }

@@ -9,13 +9,15 @@ import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatRadioButtonHarness, MatRadioGroupHarness } from '@angular/material/radio/testing';
 import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 import { MatSliderHarness } from '@angular/material/slider/testing';
+import { provideRouter } from '@angular/router';
 import type { AnalysisCell } from '@shared/contracts/analyses';
 import type { LogResource } from '@shared/contracts/logs';
 import { fillField, noAnimations } from '../../../testing/harness-helpers';
+import { ASSUMED_GUARD } from '../../../testing/table-fixtures';
 import type { AnalysisResource } from '../../core/api/analyses-api';
 import { AnalysisPanel, type AnalyseRequest, type ApplyRequest } from './analysis-panel';
 import { PREVIEW_DEBOUNCE_MS } from './proposal-preview';
-import { computeProposalPreview } from './proposal-preview-compute';
+import { type PreviewResult, computeProposalPreview } from './proposal-preview-compute';
 
 const LOGS = [
   { id: 'log-1', fileName: 'pull-1.csv', kind: 'dyno', durationS: 300, sampleCount: 6000 },
@@ -49,7 +51,11 @@ function cell(ratio: number, weight: number): AnalysisCell {
   };
 }
 
-/** An analysis of the 3×4 table: lean (1.08) on the left, rich (0.95) on the right, a hole. */
+/**
+ * An analysis of the 3×4 table: lean (1.08) on the left, rich (0.95) on the right, a hole at
+ * 100 kPa × 4000 rpm. The hole sits above the guard's 91.19 kPa line and its neighbours would
+ * fill it leaner, so the guard holds it.
+ */
 function analysis(): AnalysisResource {
   const cells = BASE.map((row, r) =>
     row.map((_, c) => (r === 2 && c === 3 ? cell(1, 0) : cell(c < 2 ? 1.08 : 0.95, 20))),
@@ -63,6 +69,7 @@ function analysis(): AnalysisResource {
     proposal: BASE.map((row) => [...row]),
     filterReport: { logs: [], samplesUsed: 5000, cellsTrusted: 11 },
     leanFlags: [],
+    guard: ASSUMED_GUARD,
     createdAt: '2026-03-01T10:00:00.000Z',
     settings: { minWeight: 10, maxStepPercent: 6 },
   };
@@ -85,14 +92,15 @@ async function settleUntil(
 
 describe('AnalysisPanel', () => {
   let fixture: ComponentFixture<AnalysisPanel>;
+  const host = () => fixture.nativeElement as HTMLElement;
   let loader: HarnessLoader;
   let analysed: AnalyseRequest[];
   let applied: ApplyRequest[];
-  let previews: (number[][] | null)[];
+  let previews: (PreviewResult | null)[];
 
   beforeEach(async () => {
     TestBed.configureTestingModule({
-      providers: [noAnimations, { provide: PREVIEW_DEBOUNCE_MS, useValue: 0 }],
+      providers: [noAnimations, provideRouter([]), { provide: PREVIEW_DEBOUNCE_MS, useValue: 0 }],
     });
     fixture = TestBed.createComponent(AnalysisPanel);
     loader = TestbedHarnessEnvironment.loader(fixture);
@@ -107,6 +115,7 @@ describe('AnalysisPanel', () => {
     fixture.componentRef.setInput('rpmAxis', RPM);
     fixture.componentRef.setInput('mapAxisKpa', MAP);
     fixture.componentRef.setInput('baseValues', BASE);
+    fixture.componentRef.setInput('vehicleId', 'v-7');
     await settle(fixture);
   });
 
@@ -209,6 +218,7 @@ describe('AnalysisPanel', () => {
           stepFraction: 0.5,
           smooth: 0.3,
           fill: true,
+          guard: true,
           lockedCells: [[2, 0]],
           onlyCells: selected,
           message: 'third pull, selection',
@@ -241,9 +251,13 @@ describe('AnalysisPanel', () => {
         mapAxisKpa: MAP,
         baseValues: BASE,
         cells: resource.cells,
-        // The analysis's own trust and step limits, as the server's apply reads them.
-        settings: { minWeight: 10, maxStepPercent: 6 },
-        apply: { stepFraction, smooth: 0.3, fill: true, lockedCells: [[0, 0]] },
+        // The analysis's own trust and step limits and its guard, as the server's apply reads them.
+        settings: {
+          minWeight: 10,
+          maxStepPercent: 6,
+          guard: { loadLineKpa: 91.19, leanAllowancePercent: 1 },
+        },
+        apply: { stepFraction, smooth: 0.3, fill: true, lockedCells: [[0, 0]], guard: true },
       });
     await settleUntil(fixture, () => !!previews.at(-1));
     const first = previews.at(-1);
@@ -257,7 +271,97 @@ describe('AnalysisPanel', () => {
     expect(second).toEqual(expected(0.9));
     expect(second).not.toEqual(first);
     // The locked cell keeps its value in every preview.
-    expect(second?.[0]?.[0]).toBe(40);
+    expect(second?.values[0]?.[0]).toBe(40);
+    expect(second?.origin[0]?.[0]).toBe('locked');
     expect((fixture.nativeElement as HTMLElement).textContent).toMatch(/\d+ cells change: mean/);
+  });
+
+  it('When the analysis is shown, then the guard’s figures and the assumed pressure are told', async () => {
+    await showAnalysis();
+    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+    expect(text).toContain(
+      'Load line 91.2 kPa (90 % of 101.3 kPa barometric pressure, assumed as standard sea-level pressure',
+    );
+    expect(text).toContain('lean allowance 1 %.');
+    const assumed = host().querySelector('[data-testid="guard-assumed"]');
+    expect(assumed?.textContent).toContain('assumed as standard sea-level pressure (101.3 kPa)');
+    expect(assumed?.textContent).toContain('the load line can be changed on');
+    expect(assumed?.querySelector('a')?.getAttribute('href')).toBe('/vehicles/v-7');
+
+    fixture.componentRef.setInput('units', 'imperial');
+    fixture.componentRef.setInput('analysis', {
+      ...analysis(),
+      guard: { ...ASSUMED_GUARD, loadLineKpa: 76.5, baroKpa: 85, baroSource: 'logged' },
+    });
+    await settle(fixture);
+    // 76.5 kPa = 11.0954 psi; 85 kPa = 12.328 psi (NIST SP 811, 2008 edition, Appendix B.8).
+    expect(host().querySelector('[data-testid="guard-figures"]')?.textContent?.trim()).toBe(
+      'Load line 11.1 psi(a) (90 % of 12.33 psi(a) barometric pressure, read from the logs’ barometer); lean allowance 1 %.',
+    );
+    expect(host().querySelector('[data-testid="guard-assumed"]')).toBeNull();
+  });
+
+  it('When the preview holds a cell under load, then the summary counts it', async () => {
+    await showAnalysis();
+    await settleUntil(fixture, () => !!previews.at(-1));
+    const preview = previews.at(-1);
+    expect(preview?.heldCount).toBe(1);
+    expect(preview?.origin[2]?.[3]).toBe('held');
+    // Held: the base value stays.
+    expect(preview?.values[2]?.[3]).toBe(92);
+    expect(host().querySelector('[data-testid="preview-held"]')?.textContent).toContain(
+      '1 cell held under load: needs data.',
+    );
+    expect(host().textContent).toContain('Cells: 11 measured, 0 filled from neighbours, 1 held');
+  });
+
+  it('When the guard is turned off, then a caution shows, the preview leans and the body says so', async () => {
+    await showAnalysis();
+    await settleUntil(fixture, () => !!previews.at(-1));
+    const guarded = previews.at(-1);
+    expect(host().querySelector('[role="alert"]')).toBeNull();
+
+    const guard = await loader.getHarness(
+      MatCheckboxHarness.with({ label: 'Fuel-safety guard under load' }),
+    );
+    expect(await guard.isChecked()).toBe(true);
+    await guard.uncheck();
+    await settleUntil(fixture, () => previews.at(-1) !== guarded);
+
+    expect(host().querySelector('[role="alert"]')?.textContent).toContain(
+      'Guard off: the fill and the smoothing may lean cells under load that no log measured',
+    );
+    const unguarded = previews.at(-1);
+    expect(unguarded?.guard).toBeNull();
+    expect(unguarded?.heldCount).toBe(0);
+    // The hole under load is now filled leaner than its base.
+    expect(unguarded?.values[2]?.[3]).toBeLessThan(92);
+    expect(host().querySelector('[data-testid="preview-held"]')?.textContent).toContain(
+      'Fuel-safety guard off: no cell is held under load.',
+    );
+
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Apply as draft' }))).click();
+    expect(applied.at(-1)?.body.guard).toBe(false);
+  });
+
+  it('When flags are loud or only watched, then the summary counts them apart and explains the words', async () => {
+    const flag = {
+      row: 2,
+      col: 0,
+      rpm: 1000,
+      mapKpa: 100,
+      leanPercent: 8,
+      worstLeanPercent: null,
+      weight: 20,
+      severity: 'warn' as const,
+    };
+    fixture.componentRef.setInput('analysis', {
+      ...analysis(),
+      leanFlags: [flag, { ...flag, col: 1, weight: 0.3, severity: 'watch' as const }],
+    });
+    await settle(fixture);
+    const text = host().textContent ?? '';
+    expect(text).toContain('1 lean-under-load flag, 1 more to watch (too little data)');
+    expect(text).toContain('“Warning”: richen the cell before the next full-load run.');
   });
 });

@@ -20,38 +20,51 @@ import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSliderModule } from '@angular/material/slider';
-import type { AnalysisSettingsBody, ApplyAnalysisRequest } from '@shared/contracts/analyses';
+import { RouterLink } from '@angular/router';
 import type { LogResource } from '@shared/contracts/logs';
+import type { UnitSystem } from '@shared/contracts/preferences';
 import { map } from 'rxjs';
+import { STANDARD_BARO_KPA } from '@shared/correct/load-guard';
 import type { AnalysisResource } from '../../core/api/analyses-api';
+import { formatQuantity } from '../../shared/units/format-quantity';
 import {
   type ApplyValue,
-  applySettingsOf,
   defaultApplyValue,
+  previewSettingsOf,
   settingsOfAnalysis,
   toApplyBody,
 } from './analysis-apply-model';
 import { APPLY_MESSAGE_MAX_LENGTH } from './analysis-setting-ranges';
 import { enableWhen, numberControl } from './analysis-settings-controls';
 import { AnalysisSettingsForm } from './analysis-settings-form';
-import { delayLine, keptLine, lockedLine, logLine, previewSummaryLine } from './analysis-text';
-import { type CellRef, type PreviewInput, summarisePreview } from './proposal-preview-compute';
+import {
+  GUARD_EXPLAINED,
+  GUARD_OFF_CAUTION,
+  GUARD_SETTING_HINT,
+  LEAN_WORDS_EXPLAINED,
+  delayLine,
+  guardLine,
+  heldLine,
+  keptLine,
+  leanCountText,
+  lockedLine,
+  logLine,
+  originLine,
+  previewSummaryLine,
+} from './analysis-text';
+import {
+  type CellRef,
+  type PreviewInput,
+  type PreviewResult,
+  countOrigins,
+  summarisePreview,
+} from './proposal-preview-compute';
 import { ProposalPreview } from './proposal-preview';
 import type { TableBusy } from './table-store';
 
-/** What "Run analysis" asks for. */
-export interface AnalyseRequest {
-  /** The chosen logs, in list order. */
-  readonly logIds: string[];
-  /** The settings of the form. */
-  readonly settings: AnalysisSettingsBody;
-}
+import type { AnalyseRequest, ApplyRequest } from './analysis-requests';
 
-/** What "Apply as draft" asks for. */
-export interface ApplyRequest {
-  /** The body of `POST /api/analyses/:id/apply`. */
-  readonly body: ApplyAnalysisRequest;
-}
+export type { AnalyseRequest, ApplyRequest };
 
 /**
  * The analysis panel: pick parsed logs of the vehicle and the settings, run an analysis against
@@ -72,6 +85,7 @@ export interface ApplyRequest {
     MatSlideToggleModule,
     MatSliderModule,
     ReactiveFormsModule,
+    RouterLink,
   ],
   providers: [ProposalPreview],
   templateUrl: './analysis-panel.html',
@@ -104,13 +118,20 @@ export class AnalysisPanel {
   readonly mapAxisKpa = input<readonly number[]>([]);
   /** The server's refusal of the last run, shown at the field it concerns; null for none. */
   readonly analyseError = input<string | null>(null);
+  /** The user's unit system, for the guard's pressures. */
+  readonly units = input<UnitSystem>('metric');
+  /** The table's vehicle, whose page holds the guard's settings; null hides the link. */
+  readonly vehicleId = input<string | null>(null);
 
   /** Run an analysis of these logs with these settings. */
   readonly analyse = output<AnalyseRequest>();
   /** Apply the analysis as a draft. */
   readonly apply = output<ApplyRequest>();
-  /** The VE the draft would hold `[row][col]`, rounded as stored; null with no analysis. */
-  readonly preview = output<number[][] | null>();
+  /**
+   * What the draft would hold: VE `[row][col]` rounded as stored, each cell's origin and the
+   * held count; null with no analysis.
+   */
+  readonly preview = output<PreviewResult | null>();
 
   private readonly settingsForm = viewChild(AnalysisSettingsForm);
   private readonly chosenIds = signal<ReadonlySet<string>>(new Set());
@@ -121,6 +142,7 @@ export class AnalysisPanel {
     stepFraction: numberControl('apply.stepFraction', 0.5),
     smooth: numberControl('apply.smooth', 0.3),
     fill: new FormControl(true, { nonNullable: true }),
+    guard: new FormControl(true, { nonNullable: true }),
     limitReach: new FormControl(false, { nonNullable: true }),
     maxReach: numberControl('apply.maxReach', 2),
     message: new FormControl('', { nonNullable: true }),
@@ -175,6 +197,7 @@ export class AnalysisPanel {
         a.stepFraction === b.stepFraction &&
         a.smooth === b.smooth &&
         a.fill === b.fill &&
+        a.guard === b.guard &&
         a.limitReach === b.limitReach &&
         a.maxReach === b.maxReach,
     },
@@ -197,7 +220,7 @@ export class AnalysisPanel {
       mapAxisKpa: this.mapAxisKpa(),
       baseValues,
       cells,
-      settings: applySettingsOf(settingsOfAnalysis(analysis)),
+      settings: previewSettingsOf(analysis),
       apply: {
         stepFraction: body.stepFraction,
         smooth: body.smooth,
@@ -205,6 +228,7 @@ export class AnalysisPanel {
         maxReach: body.maxReach,
         lockedCells: body.lockedCells,
         onlyCells: body.onlyCells,
+        guard: body.guard,
       },
     };
   });
@@ -219,6 +243,47 @@ export class AnalysisPanel {
     const summary = summarisePreview(this.baseValues(), values);
     return previewSummaryLine(summary, this.rpmAxis(), this.mapAxisKpa());
   });
+  /** The preview's held cells in words, and whether there are any; null while there is none. */
+  protected readonly previewHeld = computed(() => {
+    const result = this.previewer.result();
+    if (!result) return null;
+    return { text: heldLine(result.heldCount, result.guard !== null), count: result.heldCount };
+  });
+  /** How the preview's cells got their values, in one line; null while there is none. */
+  protected readonly previewOrigins = computed(() => {
+    const result = this.previewer.result();
+    return result ? originLine(countOrigins(result.origin)) : null;
+  });
+  /** The analysis's lean flags counted (loud ones, then the ones to watch). */
+  protected readonly leanCount = computed(() => leanCountText(this.analysis()?.leanFlags ?? []));
+  /** Whether the analysis has any loud ("warning" or "stop") flag, whose words are explained. */
+  protected readonly hasLoudFlags = computed(() =>
+    (this.analysis()?.leanFlags ?? []).some((flag) => flag.severity !== 'watch'),
+  );
+  /** The analysis's guard in words, in the user's units; null without an analysis. */
+  protected readonly guardText = computed(() => {
+    const guard = this.analysis()?.guard;
+    return guard ? guardLine(guard, this.units()) : null;
+  });
+  /** Standard sea-level pressure in the user's units, as the guard assumes it without a log's. */
+  protected readonly standardBaro = computed(() =>
+    formatQuantity('pressure', STANDARD_BARO_KPA, this.units()),
+  );
+  /** Whether the barometric pressure behind the load line was assumed. */
+  protected readonly isBaroAssumed = computed(
+    () => this.analysis()?.guard?.baroSource === 'assumed',
+  );
+  /** Whether the user turned the guard off for this apply. */
+  protected readonly isGuardOff = computed(() => !this.applyValue().guard);
+
+  /** What the guard does. */
+  protected readonly guardExplained = GUARD_EXPLAINED;
+  /** Where its settings live. */
+  protected readonly guardSettingHint = GUARD_SETTING_HINT;
+  /** The caution while it is off. */
+  protected readonly guardOffCaution = GUARD_OFF_CAUTION;
+  /** What "stop" and "warning" ask of the user. */
+  protected readonly leanWords = LEAN_WORDS_EXPLAINED;
 
   /** A log in words. */
   protected readonly logLine = logLine;
@@ -239,8 +304,8 @@ export class AnalysisPanel {
     });
     // ...and every preview that arrives is handed to the workspace.
     effect(() => {
-      const values = this.previewer.values();
-      untracked(() => this.preview.emit(values));
+      const result = this.previewer.result();
+      untracked(() => this.preview.emit(result));
     });
   }
 

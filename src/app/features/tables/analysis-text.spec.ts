@@ -1,12 +1,20 @@
 import type { LogResource } from '@shared/contracts/logs';
 import type { LeanFlag, LogFilterReport } from '../../core/api/analyses-api';
+import { ASSUMED_GUARD } from '../../../testing/table-fixtures';
 import {
+  LEAN_SEVERITY,
+  LEAN_WORDS_EXPLAINED,
   delayLine,
+  guardLine,
+  heldLine,
   keptLine,
+  leanCountText,
   leanFlagLine,
   lockedLine,
   logLine,
+  originLine,
   previewSummaryLine,
+  watchLine,
 } from './analysis-text';
 import type { PreviewSummary } from './proposal-preview-compute';
 
@@ -25,6 +33,7 @@ const FLAG: LeanFlag = {
   mapKpa: 160,
   leanPercent: 6.44,
   worstLeanPercent: 11.2,
+  weight: 42,
   severity: 'abort',
 };
 
@@ -62,8 +71,77 @@ describe('analysis text', () => {
       { ...FLAG, worstLeanPercent: null, severity: 'warn' },
       '4500 rpm × 160 kPa: 6.4 % lean on average (warning)',
     ],
+    [
+      { ...FLAG, worstLeanPercent: null, weight: 0.3, severity: 'watch' },
+      '4500 rpm × 160 kPa: 6.4 % lean on average (watch)',
+    ],
   ] as const)('When the flag is %j, then it reads %j', (flag, line) => {
     expect(leanFlagLine(flag)).toBe(line);
+  });
+
+  it('When the severities are worded, then “stop” and “warning” say what to do', () => {
+    expect(LEAN_SEVERITY.abort).toEqual({
+      word: 'stop',
+      action: 'stop loading the engine in this cell until it is richer',
+    });
+    expect(LEAN_SEVERITY.warn.word).toBe('warning');
+    expect(LEAN_WORDS_EXPLAINED).toContain('“Stop”: stop loading the engine');
+    expect(LEAN_WORDS_EXPLAINED).toContain('“Warning”: richen the cell before the next full-load');
+  });
+
+  it.each<[LeanFlag['severity'][], string]>([
+    [['abort', 'warn'], '2 lean-under-load flags'],
+    [['abort'], '1 lean-under-load flag'],
+    [['warn', 'watch', 'watch'], '1 lean-under-load flag, 2 more to watch (too little data)'],
+    [['watch'], '0 lean-under-load flags, 1 more to watch (too little data)'],
+  ])('When the flags are %j, then they are counted as %j', (severities, text) => {
+    expect(leanCountText(severities.map((severity) => ({ ...FLAG, severity })))).toBe(text);
+  });
+
+  it.each([
+    [1, '1 cell looks lean but rests on too little data: log it again.'],
+    [8, '8 cells look lean but rest on too little data: log them again.'],
+  ])('When %d cells are only watched, then the line is %j', (count, line) => {
+    expect(watchLine(count)).toBe(line);
+  });
+
+  it.each([
+    [12, true, '12 cells held under load: need data.'],
+    [1, true, '1 cell held under load: needs data.'],
+    [0, true, 'No cell held under load.'],
+    [0, false, 'Fuel-safety guard off: no cell is held under load.'],
+  ])('When %d cells are held (guard on: %p), then it reads %j', (count, isOn, line) => {
+    expect(heldLine(count, isOn)).toBe(line);
+  });
+
+  it('When the origins are counted, then kinds with no cell are left out but measured and filled', () => {
+    expect(originLine({ measured: 70, filled: 500, held: 12, locked: 0, unchanged: 66 })).toBe(
+      'Cells: 70 measured, 500 filled from neighbours, 12 held, 66 unchanged.',
+    );
+    expect(originLine({ measured: 0, filled: 0, held: 0, locked: 3, unchanged: 9 })).toBe(
+      'Cells: 0 measured, 0 filled from neighbours, 3 locked, 9 unchanged.',
+    );
+  });
+
+  it.each([
+    [
+      'metric',
+      ASSUMED_GUARD,
+      'Load line 91.2 kPa (90 % of 101.3 kPa barometric pressure, assumed as standard sea-level pressure: the logs hold no barometer or engine-off MAP); lean allowance 1 %.',
+    ],
+    [
+      'imperial',
+      { ...ASSUMED_GUARD, loadLineKpa: 76.5, baroKpa: 85, baroSource: 'logged' },
+      // 76.5 kPa / 6.894757 = 11.0954 psi; 85 / 6.894757 = 12.328 psi (NIST SP 811, App. B.8).
+      'Load line 11.1 psi(a) (90 % of 12.33 psi(a) barometric pressure, read from the logs’ barometer); lean allowance 1 %.',
+    ],
+    [
+      'metric',
+      { ...ASSUMED_GUARD, baroSource: 'engine_off', leanAllowancePercent: 0.5 },
+      'Load line 91.2 kPa (90 % of 101.3 kPa barometric pressure, read from MAP while the engine stood still); lean allowance 0.5 %.',
+    ],
+  ] as const)('When the guard is shown in %s, then it reads as expected', (units, guard, line) => {
+    expect(guardLine(guard, units)).toBe(line);
   });
 
   const SUMMARY: PreviewSummary = {

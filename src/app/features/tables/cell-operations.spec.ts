@@ -1,4 +1,10 @@
-import { type CellOperation, type OperationInput, applyCellOperation } from './cell-operations';
+import {
+  type CellOperation,
+  type OperationInput,
+  applyCellOperation,
+  heldNote,
+  isGuardedOperation,
+} from './cell-operations';
 import { type CellBounds, cellKey } from './cell-range';
 
 const EVEN_RPM = [1000, 2000, 3000, 4000, 5000];
@@ -206,5 +212,144 @@ describe('applyCellOperation', () => {
       direction: 'rows',
     });
     expect(result).toMatchObject({ ok: true, changed: [] });
+  });
+});
+
+/**
+ * The fuel-safety guard under load: smooth and fill gaps guess values, so a cell at or above the
+ * load line keeps its value where the guess would lean it beyond the allowance; deliberate edits
+ * are not guarded.
+ */
+describe('applyCellOperation under the fuel-safety guard', () => {
+  // MAP 60 kPa (part load), 100 and 120 kPa (at or above the default line, 91.19 kPa).
+  const LOADED_MAP = [60, 100, 120];
+  const RPM = [1000, 2000, 3000];
+  const MIDDLE = { r0: 1, r1: 1, c0: 1, c1: 1 };
+
+  /** A 3 × 3 table whose middle cell (100 kPa) fills to (50 + 80 + 80 + 70) / 4 = 70. */
+  function table(middle: number): number[][] {
+    return [
+      [1, 50, 1],
+      [80, middle, 80],
+      [1, 70, 1],
+    ];
+  }
+
+  function guarded(values: number[][], bounds = MIDDLE, guard?: OperationInput['guard']) {
+    return applyCellOperation(
+      { ...input(values, bounds, { rpmAxis: RPM, mapAxisKpa: LOADED_MAP }), guard },
+      { kind: 'fillGaps' },
+    );
+  }
+
+  it.each([
+    // 90 → 70 is 22 % leaner: held at 90.
+    [90, 90, 1],
+    // 70.5 → 70 is 0.71 % leaner, within the 1 % allowance: filled.
+    [70.5, 70, 0],
+    // 60 → 70 is richer: filled.
+    [60, 70, 0],
+  ])(
+    'When a cell under load at %d is filled, then it becomes %d (%d held)',
+    (before, after, heldCount) => {
+      const result = guarded(table(before));
+      if (!result.ok) throw new Error(result.message);
+      expect(result.values[1][1]).toBe(after);
+      expect(result.held).toHaveLength(heldCount);
+      // The default guard: 90 % of 101.325 kPa, 1 %.
+      expect(result.guard?.leanAllowance).toBe(0.01);
+      expect(result.guard?.loadLineKpa).toBeCloseTo(91.1925, 9);
+    },
+  );
+
+  it('When the analysis’s guard puts the line above the cell, then the cell is filled', () => {
+    const result = guarded(table(90), MIDDLE, { loadLineKpa: 110, leanAllowance: 0.01 });
+    expect(result).toMatchObject({ ok: true, held: [], changed: [{ row: 1, col: 1, value: 70 }] });
+  });
+
+  it('When the guard allows 25 %, then a 22 % leaner fill passes', () => {
+    const result = guarded(table(90), MIDDLE, { loadLineKpa: 90, leanAllowance: 0.25 });
+    expect(result).toMatchObject({ ok: true, held: [] });
+  });
+
+  it('When every changed cell is held, then the operation changes nothing and says so', () => {
+    const result = guarded(table(90));
+    expect(result).toMatchObject({ ok: true, changed: [], held: [{ row: 1, col: 1 }] });
+  });
+
+  it('When a table is smoothed, then only leaner guesses under load are held', () => {
+    // A dip at 60 kPa and a peak at 100 kPa in the middle column: smoothing lowers the peak
+    // (under load: held) and raises the dip (richer).
+    const values = [
+      [60, 60, 40, 60, 60],
+      [90, 90, 120, 90, 90],
+      [95, 95, 95, 95, 95],
+    ];
+    const bounds = { r0: 0, r1: 2, c0: 1, c1: 3 };
+    const rpmAxis = [1000, 2000, 3000, 4000, 5000];
+    const data = input(values, bounds, { rpmAxis, mapAxisKpa: LOADED_MAP });
+    const result = applyCellOperation(data, { kind: 'smooth' });
+    // The same smoothing with the line above the table: nothing is under load.
+    const free = applyCellOperation(
+      { ...data, guard: { loadLineKpa: 1000, leanAllowance: 0.01 } },
+      { kind: 'smooth' },
+    );
+    if (!result.ok || !free.ok) throw new Error('refused');
+    expect(free.held).toEqual([]);
+    expect(result.held).toContainEqual({ row: 1, col: 2 });
+    expect(result.values[1][2]).toBe(120);
+    // The dip below the line is smoothed as before.
+    expect(result.values[0][2]).toBe(free.values[0][2]);
+    expect(free.values[0][2]).toBeGreaterThan(40);
+    for (let row = 0; row < 3; row++) {
+      for (let col = 1; col <= 3; col++) {
+        const before = values[row][col];
+        const isHeld = result.held.some((cell) => cell.row === row && cell.col === col);
+        const wouldLean = free.values[row][col] < before * 0.99;
+        // Held exactly where a cell under load would have been leaned beyond 1 %.
+        expect({ row, col, isHeld }).toEqual({
+          row,
+          col,
+          isHeld: LOADED_MAP[row] >= 91.1925 && wouldLean,
+        });
+        expect(result.values[row][col]).toBe(isHeld ? before : free.values[row][col]);
+      }
+    }
+  });
+
+  it.each<CellOperation>([
+    { kind: 'scale', percent: -10 },
+    { kind: 'offset', points: -20 },
+    { kind: 'set', value: 40 },
+  ])('When the user asks for %j under load, then it is done as asked', (op) => {
+    const deliberate = applyCellOperation(
+      input(table(90), MIDDLE, { rpmAxis: RPM, mapAxisKpa: LOADED_MAP }),
+      op,
+    );
+    expect(deliberate).toMatchObject({ ok: true, held: [], guard: null });
+    if (deliberate.ok) expect(deliberate.values[1][1]).toBeLessThan(90 * 0.99);
+    expect(isGuardedOperation(op)).toBe(false);
+  });
+
+  it.each([
+    [
+      [{ row: 1, col: 1 }],
+      'Fuel-safety guard: 1 cell under load kept its value — the operation would have made it more than 1 % leaner. Scale or set it to change it on purpose.',
+    ],
+    [
+      [
+        { row: 1, col: 1 },
+        { row: 2, col: 1 },
+      ],
+      'Fuel-safety guard: 2 cells under load kept their value — the operation would have made them more than 1.5 % leaner. Scale or set them to change them on purpose.',
+    ],
+  ])('When cells %j are held, then the note reads %j', (held, note) => {
+    const allowance = held.length === 1 ? 0.01 : 0.015;
+    expect(heldNote(held, { loadLineKpa: 91, leanAllowance: allowance })).toBe(note);
+  });
+
+  it('When nothing is held or no guard ran, then there is no note', () => {
+    expect(heldNote([], { loadLineKpa: 91, leanAllowance: 0.01 })).toBeNull();
+    expect(heldNote([{ row: 0, col: 0 }], null)).toBeNull();
   });
 });

@@ -1,4 +1,6 @@
 import { type Grid } from '@shared/core/table';
+// The guard's own file, not the `correct` index: the grid needs nothing else of it.
+import { type LoadGuard, defaultLoadGuard, guardValuesUnderLoad } from '@shared/correct/load-guard';
 import { fillGaps } from '@shared/fill/fill-gaps';
 import { gaussianFilter } from '@shared/smooth/gaussian-filter';
 import {
@@ -36,6 +38,11 @@ export interface OperationInput {
   readonly rpmAxis: readonly number[];
   /** MAP breakpoints in kPa (rows). */
   readonly mapAxisKpa: readonly number[];
+  /**
+   * The fuel-safety guard smooth and fill gaps run under (the analysis's, when one is shown);
+   * default: the core's (90 % of standard barometric pressure, 1 %).
+   */
+  readonly guard?: LoadGuard;
 }
 
 /** The outcome of an operation: the new values and the cells that changed, or a refusal. */
@@ -48,6 +55,10 @@ export type OperationResult =
       readonly changed: CellChange[];
       /** What was done, for the undo history ("Scale +5 %"). */
       readonly label: string;
+      /** Cells under load the guard kept as they were (smooth and fill gaps only). */
+      readonly held: CellPosition[];
+      /** The guard that ran, null for an operation the user aims at values on purpose. */
+      readonly guard: LoadGuard | null;
     }
   | { readonly ok: false; readonly message: string };
 
@@ -142,6 +153,62 @@ function toGrid(values: readonly (readonly number[])[], blank: (r: number, c: nu
   return { rows, cols, data } satisfies Grid;
 }
 
+/**
+ * Whether an operation guesses values (smooth, fill gaps), so the fuel-safety guard applies;
+ * scale, offset, set and blend are values the user aims at on purpose and are not guarded.
+ */
+export function isGuardedOperation(op: CellOperation): boolean {
+  return op.kind === 'smooth' || op.kind === 'fillGaps';
+}
+
+/**
+ * What to tell the user about cells the guard held, or null when it held none: how many, why,
+ * and how to change them on purpose.
+ */
+export function heldNote(held: readonly CellPosition[], guard: LoadGuard | null): string | null {
+  if (!guard || held.length === 0) return null;
+  const allowance = Number((guard.leanAllowance * 100).toFixed(2));
+  const isOne = held.length === 1;
+  const them = isOne ? 'it' : 'them';
+  return (
+    `Fuel-safety guard: ${isOne ? '1 cell' : `${held.length} cells`} under load kept ` +
+    `${isOne ? 'its' : 'their'} value — the operation would have made ${them} more than ` +
+    `${allowance} % leaner. Scale or set ${them} to change ${them} on purpose.`
+  );
+}
+
+/**
+ * The guard applied to the rounded results of a guessing operation: a free cell under load that
+ * would go leaner than the allowance keeps its value in `next` (changed in place) and is listed.
+ */
+function holdUnderLoad(
+  input: OperationInput,
+  free: readonly CellPosition[],
+  next: number[][],
+  guard: LoadGuard,
+): CellPosition[] {
+  // No free cell under load: nothing to guard (and a one-row sketch of a table never reaches
+  // the core's axis checks).
+  if (!free.some(({ row }) => (input.mapAxisKpa[row] as number) >= guard.loadLineKpa)) return [];
+  const cols = input.values[0]?.length ?? 0;
+  const guarded = new Uint8Array(input.values.length * cols);
+  for (const { row, col } of free) guarded[row * cols + col] = 1;
+  const result = guardValuesUnderLoad(
+    toGrid(input.values, () => false),
+    toGrid(next, () => false),
+    input.mapAxisKpa,
+    guarded,
+    guard,
+  );
+  const held: CellPosition[] = [];
+  for (const cell of free) {
+    if (!result.held[cell.row * cols + cell.col]) continue;
+    next[cell.row][cell.col] = input.values[cell.row][cell.col];
+    held.push(cell);
+  }
+  return held;
+}
+
 /** The free (selected, unlocked) cells of the input. */
 function freeCells(input: OperationInput): CellPosition[] {
   const { bounds: b, locked } = input;
@@ -205,6 +272,11 @@ function newValueOf(
  * - smooth: each cell moves SMOOTH_STRENGTH of the way to a Gaussian (σ = SMOOTH_SIGMA_CELLS)
  *   average of the whole table, so unselected neighbours count as context.
  * - fill gaps: the cells are replaced by a harmonic fill (`fillGaps`) from the cells around them.
+ *
+ * Smooth and fill gaps guess values, so they run under the fuel-safety guard: a cell whose MAP
+ * breakpoint is at or above the guard's load line keeps its value where the guess would make it
+ * leaner than the allowance, and is listed in `held`. Scale, offset, set and blend are aimed at
+ * on purpose and are not guarded.
  */
 export function applyCellOperation(input: OperationInput, op: CellOperation): OperationResult {
   const label = operationLabel(op);
@@ -220,11 +292,15 @@ export function applyCellOperation(input: OperationInput, op: CellOperation): Op
   }
   const valueOf = newValueOf(input, op);
   if (typeof valueOf === 'string') return { ok: false, message: `${valueOf} ${NOTHING}` };
+  const next = input.values.map((row) => [...row]);
+  for (const cell of free) next[cell.row][cell.col] = Math.round(valueOf(cell) * 100) / 100;
+  const guard = isGuardedOperation(op) ? (input.guard ?? defaultLoadGuard()) : null;
+  const held = guard ? holdUnderLoad(input, free, next, guard) : [];
   const values = input.values.map((row) => [...row]);
   const changed: CellChange[] = [];
   const { min, max } = VE_RANGE;
   for (const cell of free) {
-    const value = Math.round(valueOf(cell) * 100) / 100;
+    const value = next[cell.row][cell.col];
     if (!(value >= min && value <= max)) {
       const name = cellName(input.rpmAxis, input.mapAxisKpa, cell.row, cell.col);
       const message = `${label} would take the ${name} to ${value} %, outside ${min}–${max} %. ${NOTHING}`;
@@ -235,5 +311,5 @@ export function applyCellOperation(input: OperationInput, op: CellOperation): Op
       changed.push({ ...cell, value });
     }
   }
-  return { ok: true, values, changed, label };
+  return { ok: true, values, changed, label, held, guard };
 }

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import type { LegendView } from './overlays';
 
-/** The colour scale under the grid: its gradient, end labels and how to read it. */
+/** The colour scale under the grid: its gradient, end labels, how to read it and its marks. */
 @Component({
   selector: 'app-colour-legend',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -13,7 +13,12 @@ import type { LegendView } from './overlays';
         <span>{{ legend().mid }}</span>
         <span>{{ legend().high }}</span>
       </div>
-      <figcaption class="note">{{ legend().note }}</figcaption>
+      <figcaption class="note">
+        {{ legend().note }}
+        @if (legend().marks; as marks) {
+          <span class="marks" data-testid="legend-marks">{{ marks }}</span>
+        }
+      </figcaption>
     </figure>
   `,
   styles: `
@@ -36,6 +41,10 @@ import type { LegendView } from './overlays';
       margin-top: 4px;
       color: var(--mat-sys-on-surface-variant);
       font: var(--mat-sys-body-small);
+    }
+    .marks {
+      display: block;
+      margin-top: 2px;
     }
   `,
 })

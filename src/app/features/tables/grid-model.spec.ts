@@ -14,7 +14,11 @@ const VIEW: CellView = {
   background: '#eef6e6',
   foreground: '#000000',
   isLeanFlag: false,
+  isLeanWatch: false,
   isEdited: false,
+  origin: null,
+  isHeld: false,
+  title: null,
 };
 
 describe('grid model', () => {
@@ -31,9 +35,23 @@ describe('grid model', () => {
     [{ isLeanFlag: true }, ['cs-lean-flag']],
     [{ isEdited: true }, ['cs-edited']],
     [{ isLeanFlag: true, isEdited: true }, ['cs-lean-flag', 'cs-edited']],
-  ])('When the cell is %j, then its classes are %j', (flags, classes) => {
-    expect(cellClasses({ ...VIEW, ...flags })).toEqual(classes);
-  });
+    [{ isLeanWatch: true }, ['cs-lean-watch']],
+    [{ isHeld: true }, ['cs-held']],
+    // The held mark shows on every overlay; under proposal and change it comes with its origin.
+    [{ isHeld: true, origin: 'held' }, ['cs-held']],
+    [{ origin: 'filled' }, ['cs-filled']],
+    [{ origin: 'measured' }, ['cs-measured']],
+    [{ origin: 'unchanged' }, []],
+    [
+      { isLeanWatch: true, isHeld: true, isEdited: true },
+      ['cs-lean-watch', 'cs-edited', 'cs-held'],
+    ],
+  ] as [Partial<CellView>, string[]][])(
+    'When the cell is %j, then its classes are %j',
+    (flags, classes) => {
+      expect(cellClasses({ ...VIEW, ...flags })).toEqual(classes);
+    },
+  );
 
   it.each([
     [0, 0, ['cs-selected', 'cs-sel-top', 'cs-sel-left']],
@@ -78,6 +96,18 @@ describe('grid model', () => {
     const format = map?.valueFormatter as (p: { value: unknown }) => string;
     // 1 psi = 6.894757 kPa (NIST SP 811, 2008 edition, Appendix B.8).
     expect(format({ value: 101.325 })).toBe('14.70');
+  });
+
+  it('When a cell has a title, then the column gives it as the cell’s tooltip', () => {
+    const [, column] = gridColumns([1000], {
+      isEditable: () => true,
+      decor: () => ({ selection: null, isLocked: false }),
+      edit: () => undefined,
+    });
+    const tooltip = column?.tooltipValueGetter as (p: { data?: unknown }) => string | null;
+    const row = gridRows([100], [[{ ...VIEW, title: 'Held under load, needs data' }]])[0];
+    expect(tooltip({ data: row })).toBe('Held under load, needs data');
+    expect(tooltip({ data: gridRows([100], [[VIEW]])[0] })).toBeNull();
   });
 
   it('When a cell is named for a message, then its breakpoints say which', () => {

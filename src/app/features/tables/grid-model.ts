@@ -31,9 +31,10 @@ export function gridRows(
 }
 
 /**
- * CSS classes of a cell: the lean-under-load outline, the unsaved-edit mark, the lock, and for a
- * selected cell `cs-selected` plus one class per outer edge of the selection it sits on (so the
- * whole range gets one outline, not a box per cell).
+ * CSS classes of a cell: the lean-under-load outline (or the quieter "watch" mark), the
+ * unsaved-edit mark, the held-under-load mark, the filled mark of the proposal and change
+ * overlays, the lock, and for a selected cell `cs-selected` plus one class per outer edge of the
+ * selection it sits on (so the whole range gets one outline, not a box per cell).
  */
 export function cellClasses(
   view: CellView | undefined,
@@ -44,7 +45,11 @@ export function cellClasses(
   if (!view) return [];
   const classes: string[] = [];
   if (view.isLeanFlag) classes.push('cs-lean-flag');
+  else if (view.isLeanWatch) classes.push('cs-lean-watch');
   if (view.isEdited) classes.push('cs-edited');
+  if (view.isHeld) classes.push('cs-held');
+  else if (view.origin === 'filled') classes.push('cs-filled');
+  else if (view.origin === 'measured') classes.push('cs-measured');
   if (decor.isLocked) classes.push('cs-locked');
   if (decor.selection) {
     if (isInBounds(decor.selection, row, col)) classes.push('cs-selected');
@@ -144,6 +149,8 @@ export function gridColumns(rpmAxis: readonly number[], hooks: ColumnHooks): Col
       valueFormatter: (p) => p.data?.cells[col]?.text ?? '',
       valueSetter: (p) => reportEdit(p, col),
       cellStyle: (p) => cellColours(p.data?.cells[col]),
+      // The browser's own tooltip (a title attribute): the cell's marks in words.
+      tooltipValueGetter: (p) => p.data?.cells[col]?.title ?? null,
       cellClass: (p) => {
         const row = p.data?.row ?? -1;
         return [

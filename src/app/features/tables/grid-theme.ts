@@ -2,16 +2,22 @@ import {
   CellStyleModule,
   ClientSideRowModelModule,
   TextEditorModule,
+  TooltipModule,
   themeQuartz,
   type Module,
 } from 'ag-grid-community';
 
 /**
  * The only grid modules the workspace uses (Community): client-side rows, the text editor we
- * parse ourselves, and per-cell style and class callbacks. Registering all of them would add
- * about 100 kB gzip.
+ * parse ourselves, per-cell style and class callbacks, and tooltips (as the browser's own title
+ * attribute: the cells' marks in words). Registering all of them would add about 100 kB gzip.
  */
-export const GRID_MODULES: Module[] = [ClientSideRowModelModule, TextEditorModule, CellStyleModule];
+export const GRID_MODULES: Module[] = [
+  ClientSideRowModelModule,
+  TextEditorModule,
+  CellStyleModule,
+  TooltipModule,
+];
 
 /** The grid in Cellsmith's colours: every colour is a Material system token of our theme. */
 export const GRID_THEME = themeQuartz.withParams({

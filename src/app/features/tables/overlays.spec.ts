@@ -1,6 +1,8 @@
+import { ASSUMED_GUARD } from '../../../testing/table-fixtures';
 import type { AnalysisCell, AnalysisResource } from '../../core/api/analyses-api';
 import { TEXT_ON_DARK, TEXT_ON_LIGHT } from '../../shared/ui/colour-scale';
-import { overlayView, signedFigure, type OverlayKind } from './overlays';
+import { ORIGIN_MARKS, overlayView, signedFigure, type OverlayKind } from './overlays';
+import type { PreviewResult } from './proposal-preview-compute';
 
 const VALUES = [
   [50, 60],
@@ -53,13 +55,39 @@ const ANALYSIS: AnalysisResource = {
       mapKpa: 100,
       leanPercent: 6,
       worstLeanPercent: null,
+      weight: 12,
       severity: 'warn',
     },
+    {
+      row: 1,
+      col: 0,
+      rpm: 3000,
+      mapKpa: 110,
+      leanPercent: 5.5,
+      worstLeanPercent: null,
+      weight: 3,
+      severity: 'watch',
+    },
   ],
+  guard: ASSUMED_GUARD,
   createdAt: '2026-01-01T00:00:00Z',
 };
 
-function view(kind: OverlayKind, values = VALUES, preview?: number[][] | null) {
+/** What the apply would write: one cell measured, one unchanged, one filled, one held. */
+const PREVIEW: PreviewResult = {
+  values: [
+    [52.1, 60],
+    [67.9, 80],
+  ],
+  origin: [
+    ['measured', 'unchanged'],
+    ['filled', 'held'],
+  ],
+  heldCount: 1,
+  guard: { loadLineKpa: 91.19, leanAllowance: 0.01 },
+};
+
+function view(kind: OverlayKind, values = VALUES, preview: PreviewResult | null = PREVIEW) {
   return overlayView({ kind, values, baseValues: VALUES, analysis: ANALYSIS, preview });
 }
 
@@ -83,8 +111,9 @@ describe('overlayView', () => {
     ['samples', ['30', '–', '7', '120']],
     ['spread', ['2.1', '–', '5.0', '–']],
     ['lambdaError', ['▲ +4.2', '–', '▼ −3.1', '–']],
-    ['proposal', ['52.1', '–', '67.8', '80.0']],
-    ['change', ['▲ +4.2', '–', '▼ −3.1', '–']],
+    ['proposal', ['52.1', '60.0', '67.9', '80.0']],
+    // Against the analysed revision: 52.1/50 → +4.2 %, 67.9/70 → −3.0 %.
+    ['change', ['▲ +4.2', '0.0', '▼ −3.0', '0.0']],
   ] as const)('When the overlay is %s, then the cells read %j', (kind, texts) => {
     expect(
       view(kind)
@@ -129,6 +158,17 @@ describe('overlayView', () => {
     }
   });
 
+  it('When a flag rests on too little data, then it is a quiet watch mark, not a lean flag', () => {
+    const watched = view('ve').cells[1][0];
+    expect(watched).toMatchObject({ isLeanFlag: false, isLeanWatch: true });
+    expect(watched.title).toContain(
+      'Looks lean under load (watch): too little data to act on: log this cell again.',
+    );
+    expect(view('ve').cells[0][0].title).toBe(
+      'Lean under load (warning): richen this cell before the next full-load run.',
+    );
+  });
+
   it('When a value differs from the loaded revision, then the cell is marked edited', () => {
     const edited = view('ve', [
       [50, 61],
@@ -148,11 +188,14 @@ describe('overlayView', () => {
     expect(view(kind).legend).toMatchObject({ low, high });
   });
 
-  it('When a preview is given, then proposal and change show it instead of the analysis', () => {
-    const preview = [
-      [55, 60],
-      [63, 80.8],
-    ];
+  it('When a preview is given, then proposal and change show it, not the analysis’s proposal', () => {
+    const preview = {
+      ...PREVIEW,
+      values: [
+        [55, 60],
+        [63, 80.8],
+      ],
+    };
     expect(
       view('proposal', VALUES, preview)
         .cells.flat()
@@ -166,7 +209,52 @@ describe('overlayView', () => {
     ).toEqual(['▲ +10.0', '0.0', '▼ −10.0', '▲ +1.0']);
   });
 
-  it('When the preview is null, then the analysis’s own proposal is shown', () => {
-    expect(view('proposal', VALUES, null).cells[0][1].text).toBe('–');
+  it('When the preview has not arrived, then proposal and change show no figure and say why', () => {
+    for (const kind of ['proposal', 'change'] as const) {
+      const shown = view(kind, VALUES, null);
+      // Not the analysis's own proposal (52.1, 67.8) or its changePct (+4.2, −3.1).
+      expect(shown.cells.flat().map((c) => c.text)).toEqual(['–', '–', '–', '–']);
+      expect(shown.legend.note).toContain('The figures appear once the preview is computed.');
+      expect(shown.legend.marks).toBeUndefined();
+    }
+  });
+
+  it('When the change view is shown, then each cell tells how the apply sets it', () => {
+    const cells = view('change').cells.flat();
+    expect(cells.map((c) => c.origin)).toEqual(['measured', 'unchanged', 'filled', 'held']);
+    expect(cells.map((c) => c.isHeld)).toEqual([false, false, false, true]);
+    expect(cells[2].title).toBe(
+      'Filled: a guess from the neighbours’ correction (no trusted data here).\n' +
+        'Looks lean under load (watch): too little data to act on: log this cell again.',
+    );
+    expect(cells[3].title).toMatch(/^Held under load, needs data: a guess would have made/);
+    expect(view('change').legend.marks).toBe(ORIGIN_MARKS);
+  });
+
+  it('When another overlay is shown, then only the held mark of the preview shows', () => {
+    for (const kind of ['ve', 'coverage', 'lambdaError'] as const) {
+      const cells = view(kind).cells.flat();
+      expect(cells.map((c) => c.origin)).toEqual([null, null, null, null]);
+      expect(cells.map((c) => c.isHeld)).toEqual([false, false, false, true]);
+      expect(cells[3].title).toMatch(/^Held under load, needs data/);
+      expect(cells[1].title).toBeNull();
+      expect(view(kind).legend.marks).toBeUndefined();
+    }
+  });
+
+  it('When there is no analysis, then a leftover preview marks nothing', () => {
+    const shown = overlayView({
+      kind: 'change',
+      values: VALUES,
+      baseValues: VALUES,
+      analysis: null,
+      preview: PREVIEW,
+    });
+    expect(shown.cells.flat().map((c) => [c.text, c.isHeld, c.origin])).toEqual([
+      ['–', false, null],
+      ['–', false, null],
+      ['–', false, null],
+      ['–', false, null],
+    ]);
   });
 });

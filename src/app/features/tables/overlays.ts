@@ -1,4 +1,6 @@
-import type { AnalysisResource } from '../../core/api/analyses-api';
+import type { AnalysisResource, LeanFlag } from '../../core/api/analyses-api';
+import { LEAN_SEVERITY } from './analysis-text';
+import type { CellOrigin, PreviewResult } from './proposal-preview-compute';
 import {
   DIVERGING_STOPS,
   SEQUENTIAL_STOPS,
@@ -46,10 +48,21 @@ export interface CellView {
   readonly background: string | null;
   /** Text colour chosen for contrast with the background, null with no background. */
   readonly foreground: string | null;
-  /** Whether the analysis flagged the cell lean under load. */
+  /** Whether the analysis flagged the cell lean under load with enough data ("warning", "stop"). */
   readonly isLeanFlag: boolean;
+  /** Whether the cell looks lean under load but rests on too little data ("watch"). */
+  readonly isLeanWatch: boolean;
   /** Whether the VE differs from the loaded revision (an unsaved edit). */
   readonly isEdited: boolean;
+  /**
+   * How the apply would set the cell (measured, filled, held…), shown by the proposal and change
+   * overlays; null elsewhere and without a preview.
+   */
+  readonly origin: CellOrigin | null;
+  /** Whether the preview's guard holds the cell under load: it needs data (every overlay). */
+  readonly isHeld: boolean;
+  /** The cell's marks in words, for its title; null when it has none. */
+  readonly title: string | null;
 }
 
 /** What the legend under the grid shows. */
@@ -64,6 +77,8 @@ export interface LegendView {
   readonly high: string;
   /** One sentence on how to read it. */
   readonly note: string;
+  /** How the cells' marks read (measured, filled, held), when the view has marks; else absent. */
+  readonly marks?: string;
 }
 
 /** The data an overlay is computed from. */
@@ -77,10 +92,41 @@ export interface OverlayInput {
   /** The analysis, if one was run. */
   readonly analysis: AnalysisResource | null;
   /**
-   * A proposal computed elsewhere (a live preview of other settings), `[row][col]`. When given,
-   * the proposal and change overlays show it instead of the analysis's own proposal.
+   * The live preview of applying the analysis (what the apply would write, and how each cell got
+   * there). The proposal and change overlays show it, and nothing until it arrives: the
+   * analysis's own proposal is before fill, smoothing and the guard, so it is not what applies.
    */
-  readonly preview?: readonly (readonly number[])[] | null;
+  readonly preview?: PreviewResult | null;
+}
+
+/** What a cell's origin means, for a grid cell's title. */
+export const ORIGIN_TEXT: Readonly<Record<CellOrigin, string>> = {
+  measured: 'Measured: corrected from logged data.',
+  filled: 'Filled: a guess from the neighbours’ correction (no trusted data here).',
+  held: 'Held under load, needs data: a guess would have made this cell leaner than the fuel-safety allowance, so it keeps its value until a log measures it.',
+  locked: 'Locked: keeps its value.',
+  unchanged: 'Unchanged by the apply.',
+};
+
+/** A cell's origin in a few words, for chart tooltips and the cell detail. */
+export const ORIGIN_LABEL: Readonly<Record<CellOrigin, string>> = {
+  measured: 'Measured by the logs',
+  filled: 'Filled from the neighbours',
+  held: 'Held under load: needs data (keeps its value)',
+  locked: 'Locked: keeps its value',
+  unchanged: 'Unchanged by the apply',
+};
+
+/** How the origin marks read, under the proposal and change overlays. */
+export const ORIGIN_MARKS =
+  'Upright figures: measured by the logs. Slanted figures: filled from the neighbours. Hand mark on dots: held under load, needs data (keeps its value). Hover a cell for its words.';
+
+/** A lean flag in words, for a cell's title. */
+function flagTitle(flag: LeanFlag): string {
+  const { word, action } = LEAN_SEVERITY[flag.severity];
+  return flag.severity === 'watch'
+    ? `Looks lean under load (${word}): ${action}.`
+    : `Lean under load (${word}): ${action}.`;
 }
 
 const MINUS = '\u2212';
@@ -110,13 +156,9 @@ function cellNumber(input: OverlayInput, row: number, col: number): number | nul
     case 'lambdaError':
       return cell?.lambdaErrorPct ?? null;
     case 'proposal':
-      return input.preview
-        ? (input.preview[row]?.[col] ?? null)
-        : (input.analysis?.proposal[row]?.[col] ?? null);
+      return input.preview?.values[row]?.[col] ?? null;
     case 'change':
-      return input.preview
-        ? previewChange(input, input.preview, row, col)
-        : (cell?.changePct ?? null);
+      return input.preview ? previewChange(input, input.preview.values, row, col) : null;
   }
 }
 
@@ -190,31 +232,53 @@ export interface OverlayView {
   readonly legend: LegendView;
 }
 
+/** Whether an overlay shows what the apply writes, and so marks how each cell got there. */
+function showsOrigin(kind: OverlayKind): boolean {
+  return kind === 'proposal' || kind === 'change';
+}
+
 /** Every cell's view under the chosen overlay, and its legend. */
-export function overlayView(input: OverlayInput): OverlayView {
-  const flagged = new Set((input.analysis?.leanFlags ?? []).map((f) => `${f.row}:${f.col}`));
+export function overlayView(given: OverlayInput): OverlayView {
+  // A preview belongs to the analysis shown: none, or one left over from another, marks nothing.
+  const preview = given.analysis ? (given.preview ?? null) : null;
+  const input: OverlayInput = { ...given, preview };
+  const flags = new Map((input.analysis?.leanFlags ?? []).map((f) => [`${f.row}:${f.col}`, f]));
   const numbers = input.values.map((row, r) => row.map((_, c) => cellNumber(input, r, c)));
   const range = sequentialRange(input, numbers);
   const cells = numbers.map((row, r) =>
     row.map((value, c): CellView => {
-      const isLeanFlag = flagged.has(`${r}:${c}`);
-      const isEdited = input.values[r][c] !== input.baseValues[r]?.[c];
+      const flag = flags.get(`${r}:${c}`);
+      const previewOrigin = preview?.origin[r]?.[c] ?? null;
+      const origin = showsOrigin(input.kind) ? previewOrigin : null;
+      const isHeld = previewOrigin === 'held';
+      const titles: string[] = [];
+      if (origin) titles.push(ORIGIN_TEXT[origin]);
+      else if (isHeld) titles.push(ORIGIN_TEXT.held);
+      if (flag) titles.push(flagTitle(flag));
+      const marks = {
+        isLeanFlag: !!flag && flag.severity !== 'watch',
+        isLeanWatch: flag?.severity === 'watch',
+        isEdited: input.values[r][c] !== input.baseValues[r]?.[c],
+        origin,
+        isHeld,
+        title: titles.length > 0 ? titles.join('\n') : null,
+      };
       if (value === null || !Number.isFinite(value)) {
-        return {
-          value: null,
-          text: NO_DATA,
-          background: null,
-          foreground: null,
-          isLeanFlag,
-          isEdited,
-        };
+        return { value: null, text: NO_DATA, background: null, foreground: null, ...marks };
       }
       const { text, background } = paint(input.kind, value, range);
       const foreground = readableTextColour(background);
-      return { value, text, background, foreground, isLeanFlag, isEdited };
+      return { value, text, background, foreground, ...marks };
     }),
   );
-  return { cells, legend: overlayLegend(input.kind, range) };
+  const legend = overlayLegend(input.kind, range);
+  if (!showsOrigin(input.kind)) return { cells, legend };
+  return {
+    cells,
+    legend: preview
+      ? { ...legend, marks: ORIGIN_MARKS }
+      : { ...legend, note: `${legend.note} The figures appear once the preview is computed.` },
+  };
 }
 
 /** Unit, decimals of the end labels and reading note of each sequential overlay. */
@@ -245,7 +309,7 @@ const SEQUENTIAL_LEGENDS: Record<
   proposal: {
     unit: 'VE %',
     digits: 1,
-    note: 'Proposed VE at the analysis’s step fraction, on the same colours as the VE view.',
+    note: 'VE the apply would write with the options in the analysis panel, on the same colours as the VE view.',
   },
 };
 
@@ -267,7 +331,7 @@ function overlayLegend(kind: OverlayKind, [lo, hi]: [number, number]): LegendVie
       low: `▲ +${limit} % VE up`,
       mid: '0',
       high: `▼ ${MINUS}${limit} % VE down`,
-      note: 'Proposed change of VE: ▲ + more fuel (blue), ▼ − less fuel (orange), the colours of rich and lean.',
+      note: 'Change of VE the apply would write with the panel’s options, against the analysed revision: ▲ + more fuel (blue), ▼ − less fuel (orange), the colours of rich and lean.',
     };
   }
   const scale = SEQUENTIAL_LEGENDS[kind];

@@ -1,4 +1,5 @@
 import type { AnalysisSettingsBody } from '@shared/contracts/analyses';
+import type { AppliedGuard } from '@shared/contracts/tables';
 import { analyseLogs, applyAnalysis, type AnalysisSettings } from '@shared/pipeline';
 import { DEMO_ROADSTER, ecuVeTable, simulateLog } from '@shared/sim';
 // The server's own conversions: what it stores of an analysis, what it answers the client
@@ -13,7 +14,9 @@ import {
   type PreviewApplyOptions,
   cellMask,
   computeProposalPreview,
+  countOrigins,
   evidenceGrids,
+  loadGuardOf,
   roundVe,
   summarisePreview,
 } from './proposal-preview-compute';
@@ -105,18 +108,29 @@ describe('summarisePreview', () => {
 
 /**
  * The preview must equal what the server stores. This runs a real analysis over a simulated
- * dyno session, stores it as the server does, answers it to the client as the server does
- * (through JSON), then applies it once as `applyStoredAnalysis` does (the stored evidence, the
- * analysis's own maxStepPercent / minWeight / maxSpread, the masks, rounding to 0.01) and once
- * through the preview. The option mapping below copies `applyStoredAnalysis`, which is not a
- * pure function it could be imported as.
+ * session, stores it as the server does, answers it to the client as the server does (through
+ * JSON, with the guard `analysisGuard` derives from the logs' barometric pressure and the
+ * vehicle's fuel-safety settings), then applies it once as `applyStoredAnalysis` does (the stored
+ * evidence, the analysis's own maxStepPercent / minWeight / maxSpread, the masks, the guard or
+ * null for `guard: false`, rounding to 0.01) and once through the preview. The option mapping
+ * below copies `applyStoredAnalysis` and `analysisGuard`, which are not exported.
  */
 describe('computeProposalPreview against the server’s apply', () => {
   const vehicle = DEMO_ROADSTER;
   const base = ecuVeTable(vehicle);
-  const log = simulateLog({ vehicle, kind: 'dyno', seed: 11, ecuTable: base });
+  const logs = {
+    dyno: simulateLog({ vehicle, kind: 'dyno', seed: 11, ecuTable: base }),
+    road: simulateLog({ vehicle, kind: 'road', seed: 5, ecuTable: base }),
+  };
   const rows = base.mapAxisKpa.length;
   const cols = base.rpmAxis.length;
+
+  /** A vehicle's fuel-safety settings, as `shared/contracts/vehicles` stores them. */
+  interface FuelSafety {
+    loadLinePercentOfBaro: number;
+    leanAllowancePercent: number;
+  }
+  const DEFAULT_SAFETY: FuelSafety = { loadLinePercentOfBaro: 90, leanAllowancePercent: 1 };
 
   function serverMask(cells: readonly CellRef[] | undefined): Uint8Array | undefined {
     if (!cells) return undefined;
@@ -125,16 +139,40 @@ describe('computeProposalPreview against the server’s apply', () => {
     return mask;
   }
 
-  function serverApply(settings: AnalysisSettingsBody, body: PreviewApplyOptions): number[][] {
+  /** The analysis, stored and read back as the server does, with its resource's guard. */
+  function storedAnalysis(
+    kind: keyof typeof logs,
+    settings: AnalysisSettingsBody,
+    safety: FuelSafety,
+  ) {
     const analysis = analyseLogs(
       base,
-      [{ log }],
+      [{ log: logs[kind] }],
       { displacementL: vehicle.engine.displacementL },
       settings as AnalysisSettings,
     );
     const stored = JSON.parse(JSON.stringify(storeAnalysis(analysis))) as ReturnType<
       typeof storeAnalysis
     >;
+    // analysisGuard: the vehicle's line over the logs' pressure, rounded to 0.01 kPa.
+    const guard: AppliedGuard = {
+      loadLineKpa: Math.round(analysis.baro.kpa * safety.loadLinePercentOfBaro) / 100,
+      loadLinePercentOfBaro: safety.loadLinePercentOfBaro,
+      leanAllowancePercent: safety.leanAllowancePercent,
+      baroKpa: analysis.baro.kpa,
+      baroSource: analysis.baro.source,
+    };
+    return { stored, guard: JSON.parse(JSON.stringify(guard)) as AppliedGuard };
+  }
+
+  function serverApply(
+    kind: keyof typeof logs,
+    settings: AnalysisSettingsBody,
+    safety: FuelSafety,
+    body: PreviewApplyOptions,
+  ) {
+    const { stored, guard: analysisGuard } = storedAnalysis(kind, settings, safety);
+    const guard = body.guard === false ? null : analysisGuard;
     const applied = applyAnalysis(base, storedEvidence(stored.cells), {
       stepFraction: body.stepFraction,
       smooth: body.smooth,
@@ -145,18 +183,25 @@ describe('computeProposalPreview against the server’s apply', () => {
       maxStepPercent: settings.maxStepPercent,
       minWeight: settings.minWeight,
       maxSpread: settings.maxSpread,
+      guard: guard && {
+        loadLineKpa: guard.loadLineKpa,
+        leanAllowance: guard.leanAllowancePercent / 100,
+      },
     });
-    return applied.table.values.map((row) => row.map((v) => Math.round(v * 100) / 100));
+    return {
+      values: applied.table.values.map((row) => row.map((v) => Math.round(v * 100) / 100)),
+      origin: applied.origin,
+      heldCount: applied.heldCount,
+    };
   }
 
-  function clientPreview(settings: AnalysisSettingsBody, apply: PreviewApplyOptions): number[][] {
-    const analysis = analyseLogs(
-      base,
-      [{ log }],
-      { displacementL: vehicle.engine.displacementL },
-      settings as AnalysisSettings,
-    );
-    const stored = storeAnalysis(analysis);
+  function clientPreview(
+    kind: keyof typeof logs,
+    settings: AnalysisSettingsBody,
+    safety: FuelSafety,
+    apply: PreviewApplyOptions,
+  ) {
+    const { stored, guard } = storedAnalysis(kind, settings, safety);
     // What GET /api/analyses/:id answers, as the browser parses it.
     const cells = JSON.parse(
       JSON.stringify(cellResults(stored.cells, stored.proposal)),
@@ -166,7 +211,7 @@ describe('computeProposalPreview against the server’s apply', () => {
       mapAxisKpa: base.mapAxisKpa,
       baseValues: base.values,
       cells,
-      settings: applySettingsOf(settings),
+      settings: { ...applySettingsOf(settings), guard },
       apply,
     });
   }
@@ -178,20 +223,26 @@ describe('computeProposalPreview against the server’s apply', () => {
     [5, 5],
     [6, 6],
   ];
+  /** A load line low enough to reach the part-load cells a road log leaves without data. */
+  const LOW_LINE: FuelSafety = { loadLinePercentOfBaro: 50, leanAllowancePercent: 0 };
 
-  it.each<[string, AnalysisSettingsBody, PreviewApplyOptions]>([
-    ['defaults', {}, {}],
-    ['a full step, no smoothing', {}, { stepFraction: 1, smooth: 0 }],
+  it.each<[string, keyof typeof logs, AnalysisSettingsBody, FuelSafety, PreviewApplyOptions]>([
+    ['defaults', 'dyno', {}, DEFAULT_SAFETY, {}],
+    ['a full step, no smoothing', 'dyno', {}, DEFAULT_SAFETY, { stepFraction: 1, smooth: 0 }],
     [
       'strict trust settings of the analysis',
+      'dyno',
       { minWeight: 20, maxStepPercent: 5, maxSpread: 0.03 },
+      DEFAULT_SAFETY,
       { stepFraction: 0.8, smooth: 0.6 },
     ],
-    ['no fill', { minWeight: 8 }, { stepFraction: 0.5, fill: false }],
-    ['a fill reach of 1', {}, { fill: true, maxReach: 1, smooth: 0.2 }],
+    ['no fill', 'dyno', { minWeight: 8 }, DEFAULT_SAFETY, { stepFraction: 0.5, fill: false }],
+    ['a fill reach of 1', 'dyno', {}, DEFAULT_SAFETY, { fill: true, maxReach: 1, smooth: 0.2 }],
     [
       'locked cells',
+      'dyno',
       {},
+      DEFAULT_SAFETY,
       {
         stepFraction: 0.7,
         lockedCells: [
@@ -201,19 +252,97 @@ describe('computeProposalPreview against the server’s apply', () => {
         ],
       },
     ],
-    ['only the selection', {}, { stepFraction: 0.9, onlyCells: selection, lockedCells: [[4, 4]] }],
-  ])('When the options are %s, then every cell equals the server’s', (_, settings, apply) => {
-    const expected = serverApply(settings, apply);
-    const preview = clientPreview(settings, apply);
-    expect(preview).toHaveLength(rows);
-    let moved = 0;
-    preview.forEach((row, r) =>
-      row.forEach((value, c) => {
-        expect({ cell: [r, c], value }).toEqual({ cell: [r, c], value: expected[r]?.[c] });
-        if (value !== base.values[r]?.[c]) moved++;
+    [
+      'only the selection',
+      'dyno',
+      {},
+      DEFAULT_SAFETY,
+      { stepFraction: 0.9, onlyCells: selection, lockedCells: [[4, 4]] },
+    ],
+    ['a road log, the guard on', 'road', {}, DEFAULT_SAFETY, { stepFraction: 1 }],
+    ['a road log, the guard off', 'road', {}, DEFAULT_SAFETY, { stepFraction: 1, guard: false }],
+    ['a road log, a low load line, no allowance', 'road', {}, LOW_LINE, { stepFraction: 1 }],
+    [
+      'a road log, a low load line, the guard turned on explicitly, locks',
+      'road',
+      {},
+      LOW_LINE,
+      { stepFraction: 1, guard: true, lockedCells: [[rows - 1, cols - 1]] },
+    ],
+  ])(
+    'When the options are %s (%s), then every cell and its origin equal the server’s',
+    (_, kind, settings, safety, apply) => {
+      const expected = serverApply(kind, settings, safety, apply);
+      const preview = clientPreview(kind, settings, safety, apply);
+      expect(preview.values).toHaveLength(rows);
+      let moved = 0;
+      preview.values.forEach((row, r) =>
+        row.forEach((value, c) => {
+          expect({ cell: [r, c], value, origin: preview.origin[r]?.[c] }).toEqual({
+            cell: [r, c],
+            value: expected.values[r]?.[c],
+            origin: expected.origin[r * cols + c],
+          });
+          if (value !== base.values[r]?.[c]) moved++;
+        }),
+      );
+      expect(preview.heldCount).toBe(expected.heldCount);
+      expect(preview.guard === null).toBe(apply.guard === false);
+      // The comparison is only worth something if the analysis moved cells.
+      expect(moved).toBeGreaterThan(0);
+    },
+  );
+
+  it('When the load line is low and the guard on, then cells are held and keep their base value', () => {
+    const preview = clientPreview('road', {}, LOW_LINE, { stepFraction: 1 });
+    const unguarded = clientPreview('road', {}, LOW_LINE, { stepFraction: 1, guard: false });
+    // Worth checking only if the guard had something to hold.
+    expect(preview.heldCount).toBeGreaterThan(0);
+    expect(countOrigins(preview.origin).held).toBe(preview.heldCount);
+    expect(unguarded.heldCount).toBe(0);
+    expect(countOrigins(unguarded.origin).held).toBe(0);
+    preview.origin.forEach((row, r) =>
+      row.forEach((origin, c) => {
+        if (origin !== 'held') return;
+        expect(base.mapAxisKpa[r]).toBeGreaterThanOrEqual(preview.guard?.loadLineKpa ?? Infinity);
+        expect(preview.values[r]?.[c]).toBe(roundVe([[base.values[r]?.[c] ?? NaN]])[0]?.[0]);
+        // Without the guard the same cell went leaner.
+        expect(unguarded.values[r]?.[c]).toBeLessThan(base.values[r]?.[c] ?? -Infinity);
       }),
     );
-    // The comparison is only worth something if the analysis moved cells.
-    expect(moved).toBeGreaterThan(0);
+  });
+});
+
+describe('loadGuardOf', () => {
+  const guard = { loadLineKpa: 91.19, leanAllowancePercent: 1.5 };
+
+  it.each([
+    {
+      when: 'on',
+      given: guard,
+      isOn: true,
+      expected: { loadLineKpa: 91.19, leanAllowance: 0.015 },
+    },
+    {
+      when: 'not named',
+      given: guard,
+      isOn: undefined,
+      expected: { loadLineKpa: 91.19, leanAllowance: 0.015 },
+    },
+    { when: 'off', given: guard, isOn: false, expected: null },
+    { when: 'on but the analysis names none', given: undefined, isOn: true, expected: undefined },
+  ])('When the guard is $when, then the core gets $expected', ({ given, isOn, expected }) => {
+    expect(loadGuardOf(given, isOn)).toEqual(expected);
+  });
+});
+
+describe('countOrigins', () => {
+  it('When origins are counted, then each kind has its number', () => {
+    expect(
+      countOrigins([
+        ['measured', 'filled', 'filled'],
+        ['held', 'locked', 'unchanged'],
+      ]),
+    ).toEqual({ measured: 1, filled: 2, held: 1, locked: 1, unchanged: 1 });
   });
 });

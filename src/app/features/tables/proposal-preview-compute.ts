@@ -1,12 +1,19 @@
 import type { AnalysisCell } from '@shared/contracts/analyses';
+import type { AppliedGuard } from '@shared/contracts/tables';
 import { type Grid, createGrid, type VeTable } from '@shared/core/table';
-import { applyAnalysis } from '@shared/pipeline/apply-analysis';
+import type { LoadGuard } from '@shared/correct/load-guard';
+import { type CellOrigin, applyAnalysis } from '@shared/pipeline/apply-analysis';
+
+export type { CellOrigin } from '@shared/pipeline/apply-analysis';
 
 /** A cell as `[row, col]`. */
 export type CellRef = readonly [number, number];
 
 /** The part of a cell's evidence the apply step reads (what the server stores and re-reads). */
 export type PreviewEvidenceCell = Pick<AnalysisCell, 'weight' | 'ratio' | 'spread'>;
+
+/** The figures of an analysis's fuel-safety guard the apply reads (as the API answers them). */
+export type PreviewGuard = Pick<AppliedGuard, 'loadLineKpa' | 'leanAllowancePercent'>;
 
 /** The analysis settings the server's apply takes from the stored analysis. */
 export interface PreviewAnalysisSettings {
@@ -16,6 +23,11 @@ export interface PreviewAnalysisSettings {
   readonly minWeight?: number;
   /** Largest spread of a trusted cell. */
   readonly maxSpread?: number;
+  /**
+   * The analysis's fuel-safety guard (its `guard`); absent: the core's default guard, as an
+   * apply without one.
+   */
+  readonly guard?: PreviewGuard;
 }
 
 /** The apply options the user picks, as `POST /api/analyses/:id/apply` takes them. */
@@ -32,6 +44,8 @@ export interface PreviewApplyOptions {
   readonly lockedCells?: readonly CellRef[];
   /** Only these cells change (absent: all cells). */
   readonly onlyCells?: readonly CellRef[];
+  /** `false`: the user turned the fuel-safety guard off; absent or true: on. */
+  readonly guard?: boolean;
 }
 
 /** Everything a preview is computed from; plain arrays, so it can be posted to a worker. */
@@ -58,10 +72,21 @@ export interface PreviewWorkerRequest {
   readonly input: PreviewInput;
 }
 
-/** The worker's answer: the rounded values, or the sentence the core threw. */
+/** What applying would write, and how each cell got there. */
+export interface PreviewResult {
+  /** The VE the server would store, rounded to 0.01, `[row][col]`. */
+  readonly values: number[][];
+  /** How each cell got its value (measured, filled, held, locked, unchanged), `[row][col]`. */
+  readonly origin: CellOrigin[][];
+  /** How many cells under load the guard held: they need data. */
+  readonly heldCount: number;
+  /** The guard that ran, null when the user turned it off. */
+  readonly guard: LoadGuard | null;
+}
+
+/** The worker's answer: the preview, or the sentence the core threw. */
 export type PreviewWorkerReply =
-  | { readonly id: number; readonly values: number[][] }
-  | { readonly id: number; readonly error: string };
+  ({ readonly id: number } & PreviewResult) | { readonly id: number; readonly error: string };
 
 /** How a preview differs from its base. */
 export interface PreviewSummary {
@@ -135,11 +160,31 @@ export function roundVe(values: readonly (readonly number[])[]): number[][] {
 }
 
 /**
- * The VE the server would store if the analysis were applied with these options: the same
- * `applyAnalysis` of the shared core, the same evidence, the analysis's own maxStepPercent,
- * minWeight and maxSpread, the same masks and the same rounding to 0.01.
+ * The core's guard for an apply, mapped as the server's apply maps it: off (null) when the user
+ * turned it off, else the analysis's load line with its allowance as a fraction, or undefined
+ * (the core's default guard) when the analysis names none.
  */
-export function computeProposalPreview(input: PreviewInput): number[][] {
+export function loadGuardOf(
+  guard: PreviewGuard | undefined,
+  isOn: boolean | undefined,
+): LoadGuard | null | undefined {
+  if (isOn === false) return null;
+  if (!guard) return undefined;
+  return { loadLineKpa: guard.loadLineKpa, leanAllowance: guard.leanAllowancePercent / 100 };
+}
+
+/** A row-major list as `[row][col]`. */
+function toRows<T>(list: readonly T[], rows: number, cols: number): T[][] {
+  return Array.from({ length: rows }, (_, r) => list.slice(r * cols, (r + 1) * cols));
+}
+
+/**
+ * What the server would store if the analysis were applied with these options: the same
+ * `applyAnalysis` of the shared core, the same evidence, the analysis's own maxStepPercent,
+ * minWeight, maxSpread and fuel-safety guard, the same masks and the same rounding to 0.01; with
+ * how each cell got its value.
+ */
+export function computeProposalPreview(input: PreviewInput): PreviewResult {
   const base: VeTable = {
     rpmAxis: input.rpmAxis,
     mapAxisKpa: input.mapAxisKpa,
@@ -158,8 +203,30 @@ export function computeProposalPreview(input: PreviewInput): number[][] {
     maxStepPercent: settings.maxStepPercent,
     minWeight: settings.minWeight,
     maxSpread: settings.maxSpread,
+    guard: loadGuardOf(settings.guard, apply.guard),
   });
-  return roundVe(applied.table.values);
+  return {
+    values: roundVe(applied.table.values),
+    origin: toRows(applied.origin, rows, cols),
+    heldCount: applied.heldCount,
+    guard: applied.guard,
+  };
+}
+
+/** How many cells got their value each way. */
+export type OriginCounts = Readonly<Record<CellOrigin, number>>;
+
+/** The cells of a preview counted by how they got their value. */
+export function countOrigins(origin: readonly (readonly CellOrigin[])[]): OriginCounts {
+  const counts: Record<CellOrigin, number> = {
+    measured: 0,
+    filled: 0,
+    held: 0,
+    locked: 0,
+    unchanged: 0,
+  };
+  for (const row of origin) for (const kind of row) counts[kind]++;
+  return counts;
 }
 
 /** Counts and sizes of the changes from `base` to `preview` (same shape). */

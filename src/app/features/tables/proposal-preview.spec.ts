@@ -44,7 +44,7 @@ class FakeWorker {
   /** Answers request `index` as the real worker would. */
   answer(index: number): void {
     const request = this.sent[index] as PreviewWorkerRequest;
-    const data = { id: request.id, values: computeProposalPreview(request.input) };
+    const data = { id: request.id, ...computeProposalPreview(request.input) };
     this.onmessage?.({ data } as MessageEvent<PreviewWorkerReply>);
   }
 
@@ -83,7 +83,49 @@ describe('ProposalPreview', () => {
       [52.5, 63],
       [73.5, 84],
     ]);
+    // Every cell is trusted: measured, none held, the default guard ran.
+    expect(preview.result()).toMatchObject({
+      origin: [
+        ['measured', 'measured'],
+        ['measured', 'measured'],
+      ],
+      heldCount: 0,
+      guard: { leanAllowance: 0.01 },
+    });
+    // 90 % of 101.325 kPa, the core's default line.
+    expect(preview.result()?.guard?.loadLineKpa).toBeCloseTo(91.1925, 9);
     expect(preview.isComputing()).toBe(false);
+  });
+
+  it('When the worker answers, then the origin and the held count arrive with the values', async () => {
+    const worker = new FakeWorker();
+    const preview = setUp(worker);
+    // The 80 kPa row lies above a 60 kPa load line; its cells have no data and the 40 kPa row
+    // is measured 10 % rich, so the fill would lean them by 5 %: the guard holds them.
+    const cell = { weight: 50, ratio: 0.9, spread: 0.01 };
+    const none = { weight: 0, ratio: null, spread: null };
+    preview.request({
+      ...input(1),
+      cells: [
+        [cell, cell],
+        [none, none],
+      ],
+      settings: { guard: { loadLineKpa: 60, leanAllowancePercent: 1 } },
+    });
+    await settle();
+    worker.answer(0);
+    expect(preview.result()).toMatchObject({
+      values: [
+        [45, 54],
+        [70, 80],
+      ],
+      origin: [
+        ['measured', 'measured'],
+        ['held', 'held'],
+      ],
+      heldCount: 2,
+      guard: { loadLineKpa: 60, leanAllowance: 0.01 },
+    });
   });
 
   it('When requests follow each other quickly, then only the last is computed', async () => {

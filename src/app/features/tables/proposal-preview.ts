@@ -1,6 +1,7 @@
 import { DestroyRef, Injectable, InjectionToken, computed, inject, signal } from '@angular/core';
 import {
   type PreviewInput,
+  type PreviewResult,
   type PreviewWorkerReply,
   computeProposalPreview,
 } from './proposal-preview-compute';
@@ -27,15 +28,15 @@ async function startPreviewWorker(): Promise<Worker | null> {
 
 /** Where a preview stands. */
 interface PreviewState {
-  /** The latest preview, rounded as the server stores it; null when there is none. */
-  readonly values: number[][] | null;
+  /** The latest preview (values rounded as the server stores them); null when there is none. */
+  readonly result: PreviewResult | null;
   /** Why the latest request could not be computed, or null. */
   readonly error: string | null;
   /** Whether a newer request is waiting or being computed. */
   readonly isComputing: boolean;
 }
 
-const EMPTY: PreviewState = { values: null, error: null, isComputing: false };
+const EMPTY: PreviewState = { result: null, error: null, isComputing: false };
 
 /**
  * The live preview of applying an analysis: debounced, computed in a Web Worker when the
@@ -56,8 +57,10 @@ export class ProposalPreview {
   private latestInput: PreviewInput | null = null;
   private timer: ReturnType<typeof setTimeout> | undefined;
 
+  /** The latest preview: values, each cell's origin and the held count; null when there is none. */
+  readonly result = computed(() => this.state().result);
   /** The latest preview values `[row][col]`, null when there is none. */
-  readonly values = computed(() => this.state().values);
+  readonly values = computed(() => this.state().result?.values ?? null);
   /** Why the latest preview could not be computed, or null. */
   readonly error = computed(() => this.state().error);
   /** Whether a preview is on its way. */
@@ -124,18 +127,23 @@ export class ProposalPreview {
   private settle(reply: PreviewWorkerReply): void {
     // An answer overtaken by a newer request is stale: the newer one is on its way.
     if (reply.id !== this.latestId || this.isDestroyed) return;
-    this.state.set(
-      'values' in reply
-        ? { values: reply.values, error: null, isComputing: false }
-        : { values: null, error: reply.error, isComputing: false },
-    );
+    if ('error' in reply) {
+      this.state.set({ result: null, error: reply.error, isComputing: false });
+      return;
+    }
+    const { values, origin, heldCount, guard } = reply;
+    this.state.set({
+      result: { values, origin, heldCount, guard },
+      error: null,
+      isComputing: false,
+    });
   }
 }
 
 /** The preview computed on the main thread, answered as the worker would. */
 function computeHere(id: number, input: PreviewInput): PreviewWorkerReply {
   try {
-    return { id, values: computeProposalPreview(input) };
+    return { id, ...computeProposalPreview(input) };
   } catch (error) {
     // Same as in the worker: the core's sentence is what the user needs to read.
     return { id, error: error instanceof Error ? error.message : String(error) };

@@ -10,7 +10,7 @@ addEventListener('message', (event: MessageEvent<PreviewWorkerRequest>) => {
   const { id, input } = event.data;
   let reply: PreviewWorkerReply;
   try {
-    reply = { id, values: computeProposalPreview(input) };
+    reply = { id, ...computeProposalPreview(input) };
   } catch (error) {
     // The core throws sentences naming what is wrong (a mask off the table, a ragged grid).
     reply = { id, error: error instanceof Error ? error.message : String(error) };

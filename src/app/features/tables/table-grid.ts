@@ -95,9 +95,11 @@ const SELECTION_MODULES = [...GRID_MODULES, RenderApiModule, ColumnApiModule];
       [suppressMovableColumns]="true"
       [enterNavigatesVerticallyAfterEdit]="true"
       [navigateToNextCell]="navigate"
+      [enableBrowserTooltips]="true"
       domLayout="autoHeight"
       [attr.aria-label]="label()"
       (gridReady)="onGridReady($event)"
+      (rowDataUpdated)="onRowDataUpdated()"
       (cellMouseDown)="onCellMouseDown($event)"
       (cellMouseOver)="onCellMouseOver($event)"
       (cellFocused)="onCellFocused($event)"
@@ -126,7 +128,7 @@ export class TableGrid {
   readonly label = input('VE table');
   /** The selected range, null for none. */
   readonly selection = input<CellSelection | null>(null);
-  /** Locked cells (hatched, with a lock mark). */
+  /** Locked cells (hatched, with a lock mark). Held cells come with their views. */
   readonly locked = input<CellSet>(new Set());
   /** A value typed into a cell. */
   readonly cellEdit = output<CellEditRequest>();
@@ -216,6 +218,14 @@ export class TableGrid {
   /** Keeps the grid API for refreshes and focus lookups. */
   protected onGridReady(event: GridReadyEvent<GridRow>): void {
     this.api = event.api;
+  }
+
+  /**
+   * New views can change a cell's marks and title without changing its value (a held mark, a
+   * lean flag), and the grid repaints only the cells whose value changed: repaint them all.
+   */
+  protected onRowDataUpdated(): void {
+    this.api?.refreshCells({ force: true });
   }
 
   /** A left press starts a selection (shift: extends it); on the MAP column, the whole row. */

@@ -3,6 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import type { ApplyAnalysisRequest } from '@shared/contracts/analyses';
+import type { PreviewResult } from './proposal-preview-compute';
 import { TableStore, locksStorageKey } from './table-store';
 import { answerTableLoad, revisionFixture, tableFixture } from '../../../testing/table-fixtures';
 
@@ -233,9 +234,42 @@ describe('TableStore', () => {
       smooth: 0,
       onlyCells: [[1, 1]],
       lockedCells: [[0, 0]],
+      guard: false,
     };
     store.applyAnalysis(body);
     const apply = http.expectOne('/api/analyses/a1/apply');
     expect(apply.request.body).toEqual(body);
+  });
+
+  it('When previews arrive, then one is kept only while its analysis is shown', () => {
+    const preview: PreviewResult = {
+      values: REVISION.values,
+      origin: [
+        ['measured', 'unchanged'],
+        ['held', 'unchanged'],
+      ],
+      heldCount: 1,
+      guard: { loadLineKpa: 91.19, leanAllowance: 0.01 },
+    };
+    // No analysis yet: a late preview is dropped.
+    store.showPreview(preview);
+    expect(store.preview()).toBeNull();
+
+    store.analyse({ logIds: ['l1'], settings: {} });
+    http
+      .expectOne((r) => r.method === 'POST' && r.url === '/api/tables/t1/analyses')
+      .flush({ id: 'a1', baseRevisionId: 'r1', leanFlags: [] });
+    http
+      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
+      .flush({ items: [], total: 0 });
+    store.showPreview(preview);
+    expect(store.preview()).toBe(preview);
+
+    // The apply reloads the table: the analysis and its preview go.
+    store.applyAnalysis({});
+    http.expectOne('/api/analyses/a1/apply').flush({ ...REVISION, id: 'r2', number: 2 });
+    answerTableLoad(http, TABLE, REVISION);
+    expect(store.analysis()).toBeNull();
+    expect(store.preview()).toBeNull();
   });
 });

@@ -19,11 +19,10 @@ import {
   cellKey,
   cellSetList,
   clampSelection,
-  parseCellSet,
   withBounds,
   selectionBounds,
 } from './cell-range';
-import { type CellOperation, applyCellOperation } from './cell-operations';
+import { type CellOperation, applyCellOperation, heldNote } from './cell-operations';
 import {
   EMPTY_HISTORY,
   type CellChange,
@@ -35,15 +34,14 @@ import {
   redoEdit,
   undoEdit,
 } from './edit-history';
-import type { AnalyseRequest } from './analysis-panel';
+import type { AnalyseRequest } from './analysis-requests';
 import { cellName } from './grid-model';
+import { type PreviewResult, loadGuardOf } from './proposal-preview-compute';
 import { pasteText } from './table-clipboard';
+import { readLocks, saveLocks } from './table-locks';
 import { parseVeInput } from './ve-input';
 
-/** The localStorage key of a table's locked cells (kept per browser, see `setLocked`). */
-export function locksStorageKey(tableId: string): string {
-  return `cellsmith.locks.${tableId}`;
-}
+export { locksStorageKey } from './table-locks';
 
 /** What the workspace is waiting for, if anything. */
 export type TableBusy = 'loading' | 'saving' | 'analysing' | 'applying' | null;
@@ -81,6 +79,7 @@ export class TableStore {
   private readonly waitingFor = signal<TableBusy>('loading');
   private readonly currentSelection = signal<CellSelection | null>(null);
   private readonly lockSet = signal<CellSet>(new Set());
+  private readonly latestPreview = signal<PreviewResult | null>(null);
 
   /** The table (axes, name), null until loaded. */
   readonly table = computed(() => this.loaded()?.table ?? null);
@@ -105,6 +104,12 @@ export class TableStore {
   readonly analysisBaseValues = computed(
     () => this.openedBaseValues() ?? this.loaded()?.head.values ?? [],
   );
+  /**
+   * The live preview of applying the analysis shown with the panel's options: what the apply
+   * would write and how each cell got there (measured, filled, held). Null with no analysis, and
+   * until the first preview of a newly shown analysis arrives.
+   */
+  readonly preview = this.latestPreview.asReadonly();
   /** The table's analyses, newest first (summaries). */
   readonly analyses = computed(() => this.loaded()?.analyses ?? []);
   /** The server's refusal of the last analysis run, null when it ran or none was run. */
@@ -163,13 +168,13 @@ export class TableStore {
       this.editedValues.set(loaded.head.values);
       this.editHistory.set(EMPTY_HISTORY);
       this.latestAnalysis.set(null);
+      this.latestPreview.set(null);
       this.lastAnalyseError.set(null);
       this.openedBaseValues.set(null);
       this.currentSelection.set(
         isSameTable && selection ? clampSelection(selection, rows, cols) : null,
       );
-      const stored = this.withStorage((st) => st.getItem(locksStorageKey(tableId)), null);
-      this.lockSet.set(parseCellSet(stored, rows, cols));
+      this.lockSet.set(readLocks(tableId, rows, cols));
     });
   }
 
@@ -207,21 +212,32 @@ export class TableStore {
     return outcome.note;
   }
 
-  /** Runs an operation on the selection as one undo step; returns a refusal or null. */
+  /**
+   * Runs an operation on the selection as one undo step. Smooth and fill gaps run under the
+   * fuel-safety guard of the analysis shown (the core's default guard without one). Returns what
+   * to tell the user: a refusal, the cells the guard held, or null.
+   */
   operate(op: CellOperation): string | null {
     const table = this.table();
     const bounds = this.selectionBounds();
     if (!table || !bounds) return 'Select the cells to change first.';
     const { rpmAxis, mapAxisKpa } = table;
     const values = this.editedValues();
+    const guard = loadGuardOf(this.latestAnalysis()?.guard, true) ?? undefined;
     const result = applyCellOperation(
-      { values, bounds, locked: this.lockSet(), rpmAxis, mapAxisKpa },
+      { values, bounds, locked: this.lockSet(), rpmAxis, mapAxisKpa, guard },
       op,
     );
     if (!result.ok) return result.message;
-    if (result.changed.length === 0) return `${result.label} changed no cell.`;
+    const held = heldNote(result.held, result.guard);
+    if (result.changed.length === 0) return `${result.label} changed no cell. ${held ?? ''}`.trim();
     this.commit(result.label, result.changed);
-    return null;
+    return held;
+  }
+
+  /** Takes the panel's newest preview (null: none). */
+  showPreview(preview: PreviewResult | null): void {
+    this.latestPreview.set(this.latestAnalysis() ? preview : null);
   }
 
   /**
@@ -234,8 +250,7 @@ export class TableStore {
     if (!table || !bounds) return 'Select the cells to lock first.';
     const next = withBounds(this.lockSet(), bounds, isLocked);
     this.lockSet.set(next);
-    const json = JSON.stringify(cellSetList(next));
-    this.withStorage((st) => st.setItem(locksStorageKey(table.id), json), undefined);
+    saveLocks(table.id, next);
     const { rows, cols } = boundsSize(bounds);
     const cells = rows * cols === 1 ? '1 cell' : `${rows * cols} cells`;
     return isLocked
@@ -282,6 +297,7 @@ export class TableStore {
       'The analysis failed.',
       (analysis) => {
         this.latestAnalysis.set(analysis);
+        this.latestPreview.set(null);
         this.openedBaseValues.set(null);
         this.refreshAnalyses(table.id);
       },
@@ -308,6 +324,7 @@ export class TableStore {
     this.run(request, 'The analysis could not be loaded.', ({ analysis, base }) => {
       this.openedBaseValues.set(base.id === head?.id ? null : base.values);
       this.latestAnalysis.set(analysis);
+      this.latestPreview.set(null);
     });
   }
 
@@ -340,16 +357,6 @@ export class TableStore {
 
   private commit(label: string, changes: readonly CellChange[]): void {
     this.step(applyBatch(this.editedValues(), this.editHistory(), label, changes));
-  }
-
-  /** Runs `use` on localStorage; with storage switched off or full, gives `fallback`. */
-  private withStorage<T>(use: (storage: Storage) => T, fallback: T): T {
-    try {
-      return use(localStorage);
-    } catch {
-      // Locks are a convenience of this browser: without storage they last for this visit only.
-      return fallback;
-    }
   }
 
   private step(next: HistoryStep): void {

@@ -16,7 +16,13 @@ import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { AnalysisPanel } from './analysis-panel';
 import { TableStore } from './table-store';
 import { TableWorkspace } from './table-workspace';
-import { answerTableLoad, revisionFixture, tableFixture } from '../../../testing/table-fixtures';
+import {
+  ASSUMED_GUARD,
+  answerTableLoad,
+  revisionFixture,
+  tableFixture,
+} from '../../../testing/table-fixtures';
+import type { PreviewResult } from './proposal-preview-compute';
 
 // A 4 × 5 table: rows are MAP breakpoints, columns RPM breakpoints.
 const VALUES = [
@@ -57,7 +63,31 @@ const ANALYSIS: AnalysisResource = {
   proposal: VALUES.map((row) => row.map(() => null)),
   filterReport: { logs: [] },
   leanFlags: [],
+  guard: ASSUMED_GUARD,
   createdAt: '2026-01-01T00:00:00Z',
+};
+
+/**
+ * What applying would write: the top-left cell measured (+5 %), the 120 kPa row held at 5000
+ * rpm and filled leaner at 1000 rpm within the allowance, the rest unchanged.
+ */
+const PREVIEW: PreviewResult = {
+  values: VALUES.map((row, r) =>
+    row.map((v, c) => (r === 0 && c === 0 ? 42 : r === 3 && c === 0 ? 69.5 : v)),
+  ),
+  origin: VALUES.map((row, r) =>
+    row.map((_, c) =>
+      r === 0 && c === 0
+        ? 'measured'
+        : r === 3 && c === 4
+          ? 'held'
+          : r === 3 && c === 0
+            ? 'filled'
+            : 'unchanged',
+    ),
+  ),
+  heldCount: 1,
+  guard: { loadLineKpa: 91.19, leanAllowance: 0.01 },
 };
 
 describe('TableWorkspace', () => {
@@ -76,6 +106,15 @@ describe('TableWorkspace', () => {
     await new Promise((resolve) => setTimeout(resolve));
     fixture.detectChanges();
     await fixture.whenStable();
+  }
+
+  /**
+   * Lets new views reach the cells: the page hands the grid new rows, the grid takes them in a
+   * timeout of its own and then repaints every cell (marks can change without values).
+   */
+  async function settleRows(): Promise<void> {
+    await settle();
+    await settle();
   }
 
   /** Drags from one cell to another as a mouse would: press, move over the cells, release. */
@@ -153,6 +192,108 @@ describe('TableWorkspace', () => {
     await settle();
     expect(cellText(0, 0)).toBe('2.1');
     expect(host().querySelector('app-colour-legend')?.textContent).toContain('% spread');
+  });
+
+  /** Runs an analysis answered with `analysis`. */
+  async function showAnalysis(analysis: AnalysisResource = ANALYSIS): Promise<void> {
+    store.analyse({ logIds: ['l1'], settings: {} });
+    http
+      .expectOne((r) => r.method === 'POST' && r.url === '/api/tables/t1/analyses')
+      .flush(analysis);
+    http
+      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
+      .flush({ items: [], total: 0 });
+    await settle();
+  }
+
+  it('When the preview holds a cell under load, then the grid marks it and the change view tells origins apart', async () => {
+    await showAnalysis();
+    store.showPreview(PREVIEW);
+    await settleRows();
+    // On the VE view already: the hand-and-dots mark, with its words as the cell's title.
+    expect(cellEl(3, 4)?.classList).toContain('cs-held');
+    expect(cellEl(3, 4)?.getAttribute('title')).toMatch(/^Held under load, needs data/);
+    expect(cellEl(3, 3)?.classList).not.toContain('cs-held');
+
+    await (
+      await loader.getHarness(MatButtonToggleHarness.with({ text: 'Change vs base %' }))
+    ).check();
+    await settle();
+    // 42/40 → +5 %, 69.5/70 → −0.7 %: what the apply writes, filled cells slanted.
+    expect([cellText(0, 0), cellText(3, 0), cellText(3, 4), cellText(1, 1)]).toEqual([
+      '▲ +5.0',
+      '▼ −0.7',
+      '0.0',
+      '0.0',
+    ]);
+    expect(cellEl(0, 0)?.classList).toContain('cs-measured');
+    expect(cellEl(3, 0)?.classList).toContain('cs-filled');
+    expect(cellEl(3, 0)?.getAttribute('title')).toMatch(/^Filled: a guess/);
+    expect(cellEl(3, 4)?.classList).toContain('cs-held');
+    expect(host().querySelector('[data-testid="legend-marks"]')?.textContent).toContain(
+      'Hand mark on dots: held under load, needs data',
+    );
+  });
+
+  it('When a new analysis arrives, then the old preview is dropped until its own comes', async () => {
+    await showAnalysis();
+    store.showPreview(PREVIEW);
+    await settleRows();
+    expect(cellEl(3, 4)?.classList).toContain('cs-held');
+    await showAnalysis({ ...ANALYSIS, id: 'a2' });
+    await settleRows();
+    expect(store.preview()).toBeNull();
+    expect(cellEl(3, 4)?.classList).not.toContain('cs-held');
+  });
+
+  it('When flags are loud and watched, then the banner shows them apart with their words', async () => {
+    const flag = {
+      row: 3,
+      col: 1,
+      rpm: 2000,
+      mapKpa: 120,
+      leanPercent: 7.2,
+      worstLeanPercent: 12,
+      weight: 30,
+      severity: 'abort' as const,
+    };
+    await showAnalysis({
+      ...ANALYSIS,
+      leanFlags: [flag, { ...flag, col: 3, rpm: 4000, weight: 0.4, severity: 'watch' as const }],
+    });
+    const alert = host().querySelector('app-lean-banner [role="alert"]')?.textContent ?? '';
+    expect(alert).toContain('Lean under load in 1 cell');
+    expect(alert).toContain('2000 rpm × 120 kPa: 7.2 % lean on average, worst 12.0 % (stop)');
+    expect(alert).toContain('“Stop”: stop loading the engine in that cell until it is richer.');
+    expect(alert).not.toContain('4000 rpm');
+    const quiet = host().querySelector('app-lean-banner [role="status"]')?.textContent ?? '';
+    expect(quiet).toContain('1 cell looks lean but rests on too little data: log it again.');
+    expect(quiet).toContain('4000 rpm × 120 kPa: 7.2 % lean on average, worst 12.0 % (watch)');
+    expect(cellEl(3, 1)?.classList).toContain('cs-lean-flag');
+    expect(cellEl(3, 3)?.classList).toContain('cs-lean-watch');
+    expect(cellEl(3, 3)?.classList).not.toContain('cs-lean-flag');
+  });
+
+  it('When gaps are filled under load, then a cell the fill would lean keeps its value and the guard says so', async () => {
+    // 120 kPa × 3000 rpm (74) from its neighbours 64, 72 and 76: about 70.7, 4 % leaner.
+    store.select({ anchor: { row: 3, col: 2 }, focus: { row: 3, col: 2 } });
+    expect(store.operate({ kind: 'fillGaps' })).toBe(
+      'Fill gaps changed no cell. Fuel-safety guard: 1 cell under load kept its value — the ' +
+        'operation would have made it more than 1 % leaner. Scale or set it to change it on purpose.',
+    );
+    expect(store.values()[3][2]).toBe(74);
+
+    // Below the line (60 kPa) the same fill leans a cell: 60 back to 52 from 42, 50, 54, 62.
+    expect(store.edit(1, 1, '60')).toBeNull();
+    store.select({ anchor: { row: 1, col: 1 }, focus: { row: 1, col: 1 } });
+    expect(store.operate({ kind: 'fillGaps' })).toBeNull();
+    expect(store.values()[1][1]).toBe(52);
+
+    // With an analysis whose line lies above the table, the fill under load runs too.
+    await showAnalysis({ ...ANALYSIS, guard: { ...ASSUMED_GUARD, loadLineKpa: 130 } });
+    store.select({ anchor: { row: 3, col: 2 }, focus: { row: 3, col: 2 } });
+    expect(store.operate({ kind: 'fillGaps' })).toBeNull();
+    expect(store.values()[3][2]).toBeLessThan(74);
   });
 
   it('When cells are dragged over, then they are marked and the size is shown', async () => {

@@ -81,8 +81,6 @@ export class TableWorkspace {
     this.store.analysis();
     return 've';
   });
-  /** The analysis panel's live preview of applying the analysis (null: none), shown as the proposal. */
-  protected readonly analysisPreview = signal<number[][] | null>(null);
   /** The cell the plots detail: the selection's moving end. */
   protected readonly selectedCell = computed(() => {
     const focus = this.store.selection()?.focus;
@@ -105,6 +103,8 @@ export class TableWorkspace {
   });
   /** Lambda or AFR, as the user prefers. */
   protected readonly mixture = computed(() => this.preferences.mixture());
+  /** Metric or imperial, as the user prefers. */
+  protected readonly units = computed(() => this.preferences.units());
   /** The message of the next saved revision. */
   protected readonly saveMessage = signal('');
 
@@ -117,7 +117,7 @@ export class TableWorkspace {
       values: this.store.values(),
       baseValues: this.store.analysisBaseValues(),
       analysis: this.store.analysis(),
-      preview: this.store.analysis() ? this.analysisPreview() : null,
+      preview: this.store.preview(),
     }),
   );
   /** Whether values can be changed now: a tuner, looking at the VE. */

@@ -20,6 +20,7 @@ const VEHICLE: Vehicle = {
   description: '',
   engine: { displacementL: 2, cylinders: 4, fuel: 'gasoline', stoichAfr: 14.7, injectorCcMin: 550 },
   gearing: { tireDiameterMm: 631.9, gearRatios: [3.4, 1.9, 1.3], finalDrive: 4.06 },
+  fuelSafety: { loadLinePercentOfBaro: 95, leanAllowancePercent: 0.5 },
   createdAt: '2026-01-01T00:00:00.000Z',
   updatedAt: '2026-01-01T00:00:00.000Z',
 };
@@ -153,6 +154,50 @@ describe('VehicleDialog', () => {
     const body = http.expectOne('/api/vehicles/v1').request.body as CreateVehicleInput;
     expect(body.engine.injectorCcMin).toBe(550);
     expect(body.engine.fuel).toBe('e85');
+  });
+
+  it('When a vehicle is edited, then its fuel-safety settings show and go back unchanged', async () => {
+    await open('metric', VEHICLE);
+    expect(await field('Load line')).toMatchObject({ value: '95' });
+    expect((await field('Load line')).hint).toMatch(/^50–150 %\. At or above this share/);
+    expect(await suffixOf('Load line')).toBe('% of baro');
+    expect(await field('Lean allowance')).toMatchObject({ value: '0.5' });
+
+    await press('Save changes');
+    const body = http.expectOne('/api/vehicles/v1').request.body as CreateVehicleInput;
+    expect(body.fuelSafety).toEqual({ loadLinePercentOfBaro: 95, leanAllowancePercent: 0.5 });
+  });
+
+  it('When a vehicle is created, then the guard starts at 90 % and 1 % and a change is sent', async () => {
+    await open('metric', null);
+    expect((await field('Load line')).value).toBe('90');
+    expect((await field('Lean allowance')).value).toBe('1');
+    await fillField(loader, 'Label', 'Altitude car');
+    await fillField(loader, 'Displacement', '2');
+    await fillField(loader, 'Cylinders', '4');
+    await fillField(loader, 'Injector flow', '550');
+    await fillField(loader, 'Tyre diameter', '630');
+    await fillField(loader, 'Gear ratios', '3.4, 1.9, 1.3');
+    await fillField(loader, 'Final drive', '4.06');
+    await fillField(loader, 'Lean allowance', '2');
+    await press('Create vehicle');
+
+    const request = http.expectOne({ method: 'POST', url: '/api/vehicles' });
+    const body = request.request.body as CreateVehicleInput;
+    expect(body.fuelSafety).toEqual({ loadLinePercentOfBaro: 90, leanAllowancePercent: 2 });
+    request.flush({ ...VEHICLE, id: 'v3' });
+  });
+
+  it.each([
+    ['Load line', '160', 'Load line must be 50–150 %.'],
+    ['Lean allowance', '6', 'Lean allowance must be 0–5 %.'],
+    ['Lean allowance', '', 'Enter the lean allowance in %.'],
+  ])('When the %s is %j, then it says %j and nothing is sent', async (label, text, message) => {
+    await open('metric', VEHICLE);
+    await fillField(loader, label, text);
+    expect(await (await formField(label)).getTextErrors()).toEqual([message]);
+    await press('Save changes');
+    http.expectNone('/api/vehicles/v1');
   });
 
   it('When the dialog is cancelled, then it closes with no vehicle and sends nothing', async () => {

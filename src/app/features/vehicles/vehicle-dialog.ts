@@ -21,6 +21,7 @@ import { VehiclesApi } from '../../core/api/vehicles-api';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { rangeText } from '../../shared/units/display-range';
 import {
+  DEFAULT_FUEL_SAFETY_VALUES,
   FUEL_OPTIONS,
   type VehicleFormValue,
   limitError,
@@ -63,6 +64,8 @@ interface VehicleForm {
   tireDiameterMm: FormControl<number | null>;
   gearRatios: FormControl<string>;
   finalDrive: FormControl<number | null>;
+  loadLinePercentOfBaro: FormControl<number | null>;
+  leanAllowancePercent: FormControl<number | null>;
 }
 
 /** The tyre-size helper's controls (never sent; they only fill the diameter). */
@@ -139,6 +142,8 @@ export class VehicleDialog {
     tireDiameterMm: numberControl(() => this.limits().tireDiameterMm),
     gearRatios: new FormControl('', { nonNullable: true, validators: [gearRatiosList] }),
     finalDrive: numberControl(() => this.limits().finalDrive),
+    loadLinePercentOfBaro: numberControl(() => this.limits().loadLinePercentOfBaro),
+    leanAllowancePercent: numberControl(() => this.limits().leanAllowancePercent),
   });
 
   /** The tyre-size helper. */
@@ -157,6 +162,7 @@ export class VehicleDialog {
   constructor() {
     if (this.vehicle === null) {
       this.form.controls.stoichAfr.setValue(stoichAfrFor('gasoline'));
+      this.form.patchValue(DEFAULT_FUEL_SAFETY_VALUES);
     } else {
       const value = vehicleFormValue(this.vehicle);
       for (const field of Object.keys(MEASURED_FIELDS) as MeasuredField[]) {

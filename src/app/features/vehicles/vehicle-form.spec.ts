@@ -1,6 +1,8 @@
-import type { Vehicle } from '@shared/contracts/vehicles';
+import { z } from 'zod';
+import { DEFAULT_FUEL_SAFETY, type Vehicle, fuelSafetySchema } from '@shared/contracts/vehicles';
 import { STOICH_AFR } from '@shared/units';
 import {
+  DEFAULT_FUEL_SAFETY_VALUES,
   type VehicleFormValue,
   VEHICLE_LIMITS,
   limitError,
@@ -69,6 +71,8 @@ describe('rangeMessage', () => {
     [VEHICLE_LIMITS.cylinders, 'Cylinders must be 1–16.'],
     [VEHICLE_LIMITS.injectorCcMin, 'Injector flow must be 10–10000 cc/min.'],
     [VEHICLE_LIMITS.tireDiameterMm, 'Tyre diameter must be 200–1500 mm.'],
+    [VEHICLE_LIMITS.loadLinePercentOfBaro, 'Load line must be 50–150 %.'],
+    [VEHICLE_LIMITS.leanAllowancePercent, 'Lean allowance must be 0–5 %.'],
   ])('When a value is out of %p, then the message says %p', (limit, message) => {
     expect(rangeMessage(limit)).toBe(message);
   });
@@ -98,6 +102,8 @@ describe('vehicleRequest and vehicleFormValue', () => {
     tireDiameterMm: 631.9,
     gearRatios: '3.4, 1.9, 1.3',
     finalDrive: 4.06,
+    loadLinePercentOfBaro: 92,
+    leanAllowancePercent: 0.5,
   };
 
   it.each([
@@ -117,6 +123,7 @@ describe('vehicleRequest and vehicleFormValue', () => {
       gearRatios: [3.4, 1.9, 1.3],
       finalDrive: 4.06,
     });
+    expect(body.fuelSafety).toEqual({ loadLinePercentOfBaro: 92, leanAllowancePercent: 0.5 });
   });
 
   it.each([
@@ -129,11 +136,35 @@ describe('vehicleRequest and vehicleFormValue', () => {
       description: '',
       engine: { displacementL: 1.6, cylinders: 4, fuel: 'e85', stoichAfr, injectorCcMin: 1000 },
       gearing: { tireDiameterMm: 631.9, gearRatios: [3.4, 1.9], finalDrive: 4.06 },
+      fuelSafety: { loadLinePercentOfBaro: 105, leanAllowancePercent: 0 },
       createdAt: '2026-01-01T00:00:00.000Z',
       updatedAt: '2026-01-01T00:00:00.000Z',
     } satisfies Vehicle;
     const value = vehicleFormValue(vehicle);
     expect(value.stoichAfr).toBe(shown);
     expect(value.gearRatios).toBe('3.4, 1.9');
+    expect(value).toMatchObject({ loadLinePercentOfBaro: 105, leanAllowancePercent: 0 });
+  });
+});
+
+/** The client keeps its own copy of the fuel-safety ranges and defaults (no zod in the bundle). */
+describe('fuel-safety limits against the contract', () => {
+  const schema = z.toJSONSchema(fuelSafetySchema) as {
+    properties: Record<string, { minimum: number; maximum: number }>;
+  };
+
+  it.each(['loadLinePercentOfBaro', 'leanAllowancePercent'] as const)(
+    'When %s is checked, then its range is the schema’s',
+    (field) => {
+      const { min, max } = VEHICLE_LIMITS[field];
+      expect({ min, max }).toEqual({
+        min: schema.properties[field]?.minimum,
+        max: schema.properties[field]?.maximum,
+      });
+    },
+  );
+
+  it('When a vehicle is new, then the form starts at the contract’s defaults', () => {
+    expect(DEFAULT_FUEL_SAFETY_VALUES).toEqual(DEFAULT_FUEL_SAFETY);
   });
 });

@@ -22,7 +22,20 @@ export const VEHICLE_LIMITS = {
   tireDiameterMm: { name: 'Tyre diameter', min: 200, max: 1500, unit: 'mm' },
   gearRatio: { name: 'Each gear ratio', min: 0.2, max: 10, unit: '' },
   finalDrive: { name: 'Final drive', min: 1, max: 10, unit: '' },
+  loadLinePercentOfBaro: { name: 'Load line', min: 50, max: 150, unit: '%' },
+  leanAllowancePercent: { name: 'Lean allowance', min: 0, max: 5, unit: '%' },
 } as const satisfies Record<string, FieldLimit>;
+
+/**
+ * The fuel-safety settings a new vehicle starts with (as `DEFAULT_FUEL_SAFETY` of
+ * `shared/contracts/vehicles`, kept here so zod stays out of the bundle): cells at or above 90 %
+ * of the barometric pressure count as under load, and a guess may lean such a cell by at most
+ * 1 % unless a log measured it.
+ */
+export const DEFAULT_FUEL_SAFETY_VALUES = {
+  loadLinePercentOfBaro: 90,
+  leanAllowancePercent: 1,
+} as const;
 
 /** The most gears a vehicle may have. */
 export const MAX_GEARS = 12;
@@ -140,6 +153,10 @@ export interface VehicleFormValue {
   gearRatios: string;
   /** Final drive ratio. */
   finalDrive: number;
+  /** MAP at or above which a cell counts as under load, % of the barometric pressure. */
+  loadLinePercentOfBaro: number;
+  /** How much leaner a guess may make a cell under load that no log measured, %. */
+  leanAllowancePercent: number;
 }
 
 /**
@@ -164,6 +181,10 @@ export function vehicleRequest(value: VehicleFormValue): CreateVehicleInput {
       gearRatios: ratios,
       finalDrive: value.finalDrive,
     },
+    fuelSafety: {
+      loadLinePercentOfBaro: value.loadLinePercentOfBaro,
+      leanAllowancePercent: value.leanAllowancePercent,
+    },
   };
 }
 
@@ -186,5 +207,7 @@ export function vehicleFormValue(vehicle: Vehicle): VehicleFormValue {
     tireDiameterMm: gearing.tireDiameterMm,
     gearRatios: formatGearRatios(gearing.gearRatios),
     finalDrive: gearing.finalDrive,
+    loadLinePercentOfBaro: vehicle.fuelSafety.loadLinePercentOfBaro,
+    leanAllowancePercent: vehicle.fuelSafety.leanAllowancePercent,
   };
 }

@@ -13,6 +13,7 @@ const vehicle = {
     injectorCcMin: 440,
   },
   gearing: { tireDiameterMm: 631.9, gearRatios: [3.4, 1.9, 1.3, 1, 0.8, 0.7], finalDrive: 4.06 },
+  fuelSafety: { loadLinePercentOfBaro: 90, leanAllowancePercent: 1 },
 } as Vehicle;
 
 describe('vehicle summaries', () => {

@@ -1,4 +1,5 @@
 import type { AnalysisCell, AnalysisResource } from '../../../core/api/analyses-api';
+import type { PreviewResult } from '../proposal-preview-compute';
 import { type CellDetailInput, cellDetail, physicsAt } from './cell-detail-text';
 
 const ENGINE = {
@@ -42,10 +43,28 @@ const ANALYSIS = {
       mapKpa: 100,
       leanPercent: 6.44,
       worstLeanPercent: 11.2,
+      weight: 56.25,
       severity: 'abort',
     },
   ],
 } as unknown as AnalysisResource;
+
+/**
+ * What the apply would write: the trusted cell measured (+1 %), its neighbour below the line
+ * filled, and the two cells of the first row: one held, one unchanged.
+ */
+const PREVIEW: PreviewResult = {
+  values: [
+    [40, 50],
+    [70.7, 85.86],
+  ],
+  origin: [
+    ['held', 'unchanged'],
+    ['filled', 'measured'],
+  ],
+  heldCount: 1,
+  guard: { loadLineKpa: 91.1925, leanAllowance: 0.01 },
+};
 
 /** 2.0 L four-cylinder, VE 85 % at 3000 rpm and 100 kPa: the worked example's operating point. */
 const INPUT: CellDetailInput = {
@@ -60,6 +79,7 @@ const INPUT: CellDetailInput = {
     [70, 85],
   ],
   analysis: ANALYSIS,
+  preview: PREVIEW,
   vehicle: { engine: ENGINE },
   cell: { row: 1, col: 1 },
 };
@@ -104,8 +124,10 @@ describe('cell detail text', () => {
     expect(detail.subtitle).toBe('Row 2 (MAP), column 2 (RPM)');
     expect(detail.lines.map((l) => [l.label, l.value, l.tone])).toEqual([
       ['VE now', '85.0 %', null],
-      ['Proposal', '85.9 %', null],
+      ['Apply writes', '85.9 %', null],
+      // 85.86 / 85 − 1 = +1.0 %
       ['Change', '+1.0 %', null],
+      ['How', 'Measured by the logs', null],
       ['Samples', '1,234', null],
       ['Weight', '56.3', null],
       ['Effective count', '40.1', null],
@@ -113,8 +135,8 @@ describe('cell detail text', () => {
       ['Lambda', '1.013 measured vs 1.000 commanded (▲ +1.3 % lean)', null],
       ['Status', 'Trusted: enough data for a proposal', null],
       [
-        'Lean under load',
-        '+6.4 % leaner than commanded, worst +11.2 % — check before any load',
+        'Lean under load (stop)',
+        '+6.4 % leaner than commanded, worst +11.2 % — stop loading the engine in this cell until it is richer',
         'lean',
       ],
       ['Airflow', '49.7 g/s', null],
@@ -145,11 +167,12 @@ describe('cell detail text', () => {
     ],
     [
       'a cell the analysis never reached',
-      { cell: { row: 0, col: 0 }, vehicle: null },
+      { cell: { row: 0, col: 1 }, vehicle: null },
       [
-        ['VE now', '40.0 %'],
-        ['Proposal', '–'],
-        ['Change', '–'],
+        ['VE now', '50.0 %'],
+        ['Apply writes', '50.0 %'],
+        ['Change', '0.0 %'],
+        ['How', 'Unchanged by the apply'],
         ['Samples', '–'],
         ['Weight', '–'],
         ['Effective count', '–'],
@@ -161,6 +184,59 @@ describe('cell detail text', () => {
   ])('When the cell is %s, then the lines read as expected', (_, change, lines) => {
     const detail = cellDetail({ ...INPUT, ...change });
     expect(detail.lines.map((l) => [l.label, l.value])).toEqual(lines);
+  });
+
+  it('When a cell is held under load, then a line says it needs data and why', () => {
+    const detail = cellDetail({ ...INPUT, cell: { row: 0, col: 0 }, vehicle: null });
+    expect(detail.lines.slice(0, 5).map((l) => [l.label, l.value, l.tone])).toEqual([
+      ['VE now', '40.0 %', null],
+      ['Apply writes', '40.0 %', null],
+      ['Change', '0.0 %', null],
+      ['How', 'Held under load: needs data (keeps its value)', null],
+      [
+        'Held under load',
+        'Needs data: at or above the load line (91.2 kPa), a guess from the neighbours would ' +
+          'have made this cell more than 1 % leaner, so the apply keeps its value. Log this ' +
+          'cell to correct it.',
+        'held',
+      ],
+    ]);
+  });
+
+  it('When the preview has not arrived, then the apply’s lines wait for it', () => {
+    const lines = cellDetail({ ...INPUT, preview: null }).lines.slice(1, 4);
+    // Not the analysis's own proposal (85.86) or its changePct.
+    expect(lines.map((l) => [l.label, l.value])).toEqual([
+      ['Apply writes', '–'],
+      ['Change', '–'],
+      ['How', '–'],
+    ]);
+  });
+
+  it.each([
+    [
+      'warn',
+      'Lean under load (warning)',
+      '— richen this cell before the next full-load run',
+      'lean',
+    ],
+    [
+      'watch',
+      'Looks lean under load (watch)',
+      '— too little data to act on: log this cell again',
+      'watch',
+    ],
+  ] as const)('When the flag is a %s, then its line reads %j', (severity, label, action, tone) => {
+    const analysis = {
+      ...ANALYSIS,
+      leanFlags: [{ ...ANALYSIS.leanFlags[0], severity, worstLeanPercent: null }],
+    } as AnalysisResource;
+    const flag = cellDetail({ ...INPUT, analysis }).lines.find((l) => l.label === label);
+    expect(flag).toEqual({
+      label,
+      value: `+6.4 % leaner than commanded ${action}`,
+      tone,
+    });
   });
 
   it('When the user reads AFR, then lambda is shown times the fuel’s stoichiometric AFR', () => {

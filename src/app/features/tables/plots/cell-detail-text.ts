@@ -1,12 +1,15 @@
 /**
- * Everything known about one cell, in words: its breakpoints, VE now and proposed, what the
- * analysis measured there, and the airflow and injector duty the speed-density equation gives
+ * Everything known about one cell, in words: its breakpoints, VE now and what the apply would
+ * write there and how (measured, filled, held under load), what the analysis measured there, and the airflow and injector duty the speed-density equation gives
  * at that cell for the vehicle's engine, with the assumptions behind those two figures.
  */
 import type { Vehicle } from '@shared/contracts/vehicles';
 import type { MixtureDisplay } from '@shared/contracts/preferences';
 import { type DutyLevel, assumedPowerLambda, cellPhysics } from '@shared/physics';
-import type { AnalysisResource } from '../../../core/api/analyses-api';
+import type { AnalysisResource, LeanFlag } from '../../../core/api/analyses-api';
+import { LEAN_SEVERITY } from '../analysis-text';
+import { ORIGIN_LABEL } from '../overlays';
+import type { PreviewResult } from '../proposal-preview-compute';
 import { type CellRef, NO_FIGURE, grouped, lambdaErrorText, signed } from './plot-format';
 
 /** Intake air temperature the physics assumes, °C: the ECU's own air charge is not logged here. */
@@ -24,6 +27,11 @@ export interface CellDetailInput {
   readonly baseValues: readonly (readonly number[])[];
   /** The analysis, if any. */
   readonly analysis: AnalysisResource | null;
+  /**
+   * The live preview of applying the analysis: what the apply would write at the cell and how
+   * (measured, filled, held). Absent or null: those lines wait for it.
+   */
+  readonly preview?: PreviewResult | null;
   /** The vehicle, for its engine (null while loading). */
   readonly vehicle: Pick<Vehicle, 'engine'> | null;
   /** The cell. */
@@ -38,8 +46,11 @@ export interface DetailLine {
   readonly label: string;
   /** The figure in words. */
   readonly value: string;
-  /** `lean` for a lean-under-load flag, `warn` for injector duty near its limit. */
-  readonly tone: 'lean' | 'warn' | null;
+  /**
+   * `lean` for a lean-under-load flag with enough data, `watch` for one on too little data,
+   * `held` for a cell the fuel-safety guard holds, `warn` for injector duty near its limit.
+   */
+  readonly tone: 'lean' | 'watch' | 'held' | 'warn' | null;
 }
 
 /** The airflow and duty at the cell, and the lambda they assumed. */
@@ -85,6 +96,27 @@ function fixed(value: number | null | undefined, digits: number, unit = ''): str
   return value === null || value === undefined || !Number.isFinite(value)
     ? NO_FIGURE
     : `${value.toFixed(digits)}${unit}`;
+}
+
+/** A lean flag's line: its severity's word in the label, the figures and what to do. */
+function flagLine(flag: LeanFlag): DetailLine {
+  const { word, action } = LEAN_SEVERITY[flag.severity];
+  const worst = flag.worstLeanPercent === null ? '' : `, worst ${signed(flag.worstLeanPercent)} %`;
+  const figures = `${signed(flag.leanPercent)} % leaner than commanded${worst}`;
+  return flag.severity === 'watch'
+    ? line(`Looks lean under load (${word})`, `${figures} — ${action}`, 'watch')
+    : line(`Lean under load (${word})`, `${figures} — ${action}`, 'lean');
+}
+
+/** Why a held cell keeps its value, with the guard's figures. */
+function heldText(preview: PreviewResult): string {
+  const guard = preview.guard;
+  const figures = guard
+    ? ` at or above the load line (${Number(guard.loadLineKpa.toFixed(1))} kPa), a guess from ` +
+      `the neighbours would have made this cell more than ` +
+      `${Number((guard.leanAllowance * 100).toFixed(2))} % leaner`
+    : ' a guess from the neighbours would have made this cell leaner under load';
+  return `Needs data:${figures}, so the apply keeps its value. Log this cell to correct it.`;
 }
 
 /**
@@ -148,7 +180,9 @@ export function cellDetail(input: CellDetailInput): CellDetail {
   const ve = input.values[row]?.[col];
   const saved = input.baseValues[row]?.[col];
   const cell = input.analysis?.cells[row]?.[col] ?? null;
-  const proposal = input.analysis?.proposal[row]?.[col] ?? null;
+  const preview = input.analysis ? (input.preview ?? null) : null;
+  const applied = preview?.values[row]?.[col] ?? null;
+  const origin = preview?.origin[row]?.[col] ?? null;
   const flag = input.analysis?.leanFlags.find((f) => f.row === row && f.col === col);
   const physics = physicsAt(input);
 
@@ -158,12 +192,19 @@ export function cellDetail(input: CellDetailInput): CellDetail {
       : fixed(ve, 1, ' %');
   const lines: DetailLine[] = [line('VE now', veText)];
   if (input.analysis) {
-    const change = cell?.changePct ?? null;
+    // What the apply would write, against the analysed revision (as the change overlay).
+    const change =
+      applied !== null && saved !== undefined && saved !== 0 ? (applied / saved - 1) * 100 : null;
     // The spread of the correction ratio, shown in percent of it.
     const spread = cell?.spread ?? null;
     lines.push(
-      line('Proposal', fixed(proposal, 1, ' %')),
+      line('Apply writes', fixed(applied, 1, ' %')),
       line('Change', change === null ? NO_FIGURE : `${signed(change)} %`),
+      line('How', origin === null ? NO_FIGURE : ORIGIN_LABEL[origin]),
+    );
+    if (origin === 'held' && preview)
+      lines.push(line('Held under load', heldText(preview), 'held'));
+    lines.push(
       line('Samples', cell ? grouped(cell.samples) : NO_FIGURE),
       line('Weight', fixed(cell?.weight, 1)),
       line('Effective count', fixed(cell?.effectiveCount, 1)),
@@ -178,17 +219,7 @@ export function cellDetail(input: CellDetailInput): CellDetail {
       ),
       line('Status', STATUS_TEXT[cell?.status ?? 'no_data'] ?? cell?.status ?? NO_FIGURE),
     );
-    if (flag) {
-      const worst =
-        flag.worstLeanPercent === null ? '' : `, worst ${signed(flag.worstLeanPercent)} %`;
-      lines.push(
-        line(
-          'Lean under load',
-          `${signed(flag.leanPercent)} % leaner than commanded${worst} — check before any load`,
-          'lean',
-        ),
-      );
-    }
+    if (flag) lines.push(flagLine(flag));
   }
   if (physics) {
     const near = physics.level === 'ok' ? '' : ' — near the injector’s limit';

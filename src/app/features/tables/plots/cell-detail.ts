@@ -3,13 +3,15 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatCardModule } from '@angular/material/card';
 import type { Vehicle } from '@shared/contracts/vehicles';
 import type { AnalysisResource } from '../../../core/api/analyses-api';
+import type { PreviewResult } from '../proposal-preview-compute';
 import { cellDetail } from './cell-detail-text';
 import type { CellRef } from './plot-format';
 
 /**
- * One cell in detail: breakpoints, VE now and proposed, what the analysis measured there, and
- * the airflow and injector duty at that cell, with the assumptions behind them. A lean-under-load
- * flag and a duty near the injector's limit are called out.
+ * One cell in detail: breakpoints, VE now and what the apply would write there and how, what the
+ * analysis measured there, and the airflow and injector duty at that cell, with the assumptions
+ * behind them. A lean-under-load flag, a cell held under load and a duty near the injector's
+ * limit are called out.
  */
 @Component({
   selector: 'app-cell-detail',
@@ -25,7 +27,13 @@ import type { CellRef } from './plot-format';
         <mat-card-content>
           <dl class="lines">
             @for (l of d.lines; track l.label) {
-              <div class="line" [class.lean]="l.tone === 'lean'" [class.warn]="l.tone === 'warn'">
+              <div
+                class="line"
+                [class.lean]="l.tone === 'lean'"
+                [class.warn]="l.tone === 'warn'"
+                [class.held]="l.tone === 'held'"
+                [class.watch]="l.tone === 'watch'"
+              >
                 <dt>{{ l.label }}</dt>
                 <dd>{{ l.value }}</dd>
               </div>
@@ -74,6 +82,15 @@ import type { CellRef } from './plot-format';
       color: var(--mat-sys-error);
       font-weight: 600;
     }
+    // Held under load: bold in the theme's tertiary colour, apart from the lean lines' error red.
+    .held dt,
+    .held dd {
+      color: var(--mat-sys-tertiary);
+      font-weight: 600;
+    }
+    .watch dt {
+      font-style: italic;
+    }
     .assumptions,
     .caution,
     .empty {
@@ -94,6 +111,8 @@ export class CellDetail {
   readonly baseValues = input<readonly (readonly number[])[]>([]);
   /** The analysis, if any. */
   readonly analysis = input<AnalysisResource | null>(null);
+  /** The live preview of applying it: what the apply would write at the cell, and how. */
+  readonly preview = input<PreviewResult | null>(null);
   /** The vehicle, for its engine. */
   readonly vehicle = input<Pick<Vehicle, 'engine'> | null>(null);
   /** The cell to show; null shows a hint. */
@@ -113,6 +132,7 @@ export class CellDetail {
       values: this.values(),
       baseValues: this.baseValues(),
       analysis: this.analysis(),
+      preview: this.preview(),
       vehicle: this.vehicle(),
       cell,
       mixture: this.mixture(),

@@ -1,4 +1,3 @@
-import type { AnalysisResource } from '../../../core/api/analyses-api';
 import { SEQUENTIAL_STOPS, colourAt } from '../../../shared/ui/colour-scale';
 import { FALLBACK_CHART_THEMES } from './chart-theme';
 import { type CurvesInput, curvesOption, rowColour } from './curves-option';
@@ -11,7 +10,7 @@ const INPUT: CurvesInput = {
     [55, 62, 70],
     [70, 80, 88],
   ],
-  analysis: null,
+  proposal: null,
   selectedCell: null,
   theme: FALLBACK_CHART_THEMES.light,
 };
@@ -40,15 +39,13 @@ describe('curves option', () => {
     expect(lines.every((s) => s.type === 'line' && s.lineStyle?.width === 1.5)).toBe(true);
   });
 
-  it('When a cell is picked with an analysis, then its row is bold and its proposal dashed', () => {
-    const analysis = {
-      proposal: [
-        [41, 46, 51],
-        [56, null, 72],
-        [71, 81, 89],
-      ],
-    } as unknown as AnalysisResource;
-    const lines = series({ ...INPUT, analysis, selectedCell: { row: 1, col: 2 } });
+  it('When a cell is picked with a preview, then its row is bold and what applies dashed', () => {
+    const proposal = [
+      [41, 46, 51],
+      [56, 63, 72],
+      [71, 81, 89],
+    ];
+    const lines = series({ ...INPUT, proposal, selectedCell: { row: 1, col: 2 } });
     expect(lines.map((s) => s.name)).toEqual([
       '40 kPa',
       '70 kPa',
@@ -62,14 +59,14 @@ describe('curves option', () => {
       color: lines[1].color,
       data: [
         [1000, 56],
-        [2000, null],
+        [2000, 63],
         [3000, 72],
       ],
     });
     expect(lines[4].data).toEqual([[3000, 70]]);
   });
 
-  it('When a cell is picked without an analysis, then no proposal line is drawn', () => {
+  it('When a cell is picked without a preview, then no proposal line is drawn', () => {
     const names = series({ ...INPUT, selectedCell: { row: 0, col: 0 } }).map((s) => s.name);
     expect(names).toEqual(['40 kPa', '70 kPa', '100 kPa', 'Picked cell']);
   });

@@ -1,8 +1,8 @@
 /**
  * The table as curves: VE against RPM, one line per MAP breakpoint, coloured along our
  * sequential scale from low to high MAP. Easier to read than a 3-D surface: a kink or a step
- * between neighbours shows at once. The picked cell's line is drawn bold with its proposal
- * dashed beside it. Pure: data in, option object out.
+ * between neighbours shows at once. The picked cell's line is drawn bold with what the apply
+ * would write (the live preview) dashed beside it. Pure: data in, option object out.
  */
 import type { LineSeriesOption, ScatterSeriesOption } from 'echarts/charts';
 import type {
@@ -11,7 +11,6 @@ import type {
   TooltipComponentOption,
 } from 'echarts/components';
 import type { ComposeOption } from 'echarts/core';
-import type { AnalysisResource } from '../../../core/api/analyses-api';
 import { SEQUENTIAL_STOPS, colourAt } from '../../../shared/ui/colour-scale';
 import type { ChartTheme } from './chart-theme';
 import type { CellRef } from './plot-format';
@@ -33,8 +32,11 @@ export interface CurvesInput {
   readonly mapAxisKpa: readonly number[];
   /** VE now, `[row][col]`. */
   readonly values: readonly (readonly number[])[];
-  /** The analysis, for the picked row's proposal. */
-  readonly analysis: AnalysisResource | null;
+  /**
+   * What applying the analysis would write (the live preview), `[row][col]`: the picked row's
+   * dashed line; null draws none.
+   */
+  readonly proposal: readonly (readonly number[])[] | null;
   /** The picked cell: its row is drawn bold. */
   readonly selectedCell: CellRef | null;
   /** The frame's colours. */
@@ -78,7 +80,7 @@ export function curvesOption(input: CurvesInput): CurvesOption {
   if (selectedCell) {
     const r = selectedCell.row;
     const colour = rowColour(r, rows, theme.isDark);
-    const proposal = input.analysis?.proposal[r];
+    const proposal = input.proposal?.[r];
     if (proposal) {
       series.push({
         type: 'line',

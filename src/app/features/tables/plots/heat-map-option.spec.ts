@@ -5,12 +5,15 @@ import {
   colourAt,
   readableTextColour,
 } from '../../../shared/ui/colour-scale';
+import { overlayView } from '../overlays';
+import type { PreviewResult } from '../proposal-preview-compute';
 import { FALLBACK_CHART_THEMES } from './chart-theme';
 import {
   type HeatLayer,
   type HeatMapInput,
   heatLegend,
   heatMapOption,
+  HEAT_ORIGIN_MARKS,
   heatTooltip,
   layerFigure,
 } from './heat-map-option';
@@ -46,14 +49,35 @@ const ANALYSIS = {
   leanFlags: [],
 } as unknown as AnalysisResource;
 
+/**
+ * What the apply would write: measured at (0, 0) and (1, 2), filled richer at (1, 1), held at
+ * (1, 0). The analysis's own proposal above differs on purpose: the layers must not show it.
+ */
+const PREVIEW: PreviewResult = {
+  values: [
+    [49, 55, 60],
+    [70, 90, 90],
+  ],
+  origin: [
+    ['measured', 'unchanged', 'unchanged'],
+    ['held', 'filled', 'measured'],
+  ],
+  heldCount: 1,
+  guard: { loadLineKpa: 91.19, leanAllowance: 0.01 },
+};
+
+const VALUES = [
+  [50, 55, 60],
+  [70, 80, 90],
+];
+
 const INPUT: HeatMapInput = {
   rpmAxis: [1000, 2000, 3000],
   mapAxisKpa: [40, 100],
-  values: [
-    [50, 55, 60],
-    [70, 80, 90],
-  ],
+  values: VALUES,
+  baseValues: VALUES,
   analysis: ANALYSIS,
+  preview: PREVIEW,
   layer: 've',
   selectedCell: { row: 1, col: 2 },
   theme: FALLBACK_CHART_THEMES.light,
@@ -63,7 +87,11 @@ const INPUT: HeatMapInput = {
 function item(layer: HeatLayer, row: number, col: number) {
   const series = heatMapOption({ ...INPUT, layer }).series as { data: unknown[] }[];
   return (
-    series[0].data as { value: number[]; label: { color: string }; itemStyle: object }[]
+    series[0].data as {
+      value: number[];
+      label: { color: string; fontStyle?: string };
+      itemStyle: object;
+    }[]
   ).find((d) => d.value[0] === col && d.value[1] === row);
 }
 
@@ -87,17 +115,19 @@ describe('heat map option', () => {
     ['ve', 0, 0, [0, 0, 0, 50]],
     ['ve', 1, 2, [2, 1, 1, 90]],
     ['ve', 0, 1, [1, 0, 0.125, 55]],
-    // Proposal shares one range with VE (49–90), so their colours compare.
+    // Proposal (what the apply writes) shares one range with VE (49–90), so colours compare.
     ['proposal', 0, 0, [0, 0, 0, 49]],
-    ['proposal', 0, 1, undefined],
+    ['proposal', 1, 1, [1, 1, 1, 90]],
     // Lambda error: lean (+) towards orange (1), rich (−) towards blue (0), clamped at ±10 %.
     ['lambdaError', 0, 0, [0, 0, 0.75, 5]],
     ['lambdaError', 0, 2, [2, 0, 0, -20]],
     ['lambdaError', 1, 0, [0, 1, 0.5, 0]],
     ['lambdaError', 0, 1, undefined],
-    // Change: coloured by the fuel it adds, VE up = richer = blue (towards 0).
-    ['change', 1, 1, [1, 1, 0, 12]],
-    ['change', 0, 0, [0, 0, 0.6, -2]],
+    // Change (the apply's, against the analysed revision): coloured by the fuel it adds, VE up
+    // = richer = blue (towards 0). 90/80 = +12.5 %, clamped at +10 %; 60/60 = 0; held = 0.
+    ['change', 1, 1, [1, 1, 0, 12.5]],
+    ['change', 0, 2, [2, 0, 0.5, 0]],
+    ['change', 1, 0, [0, 1, 0.5, 0]],
   ])('When the layer is %s, then cell (%p, %p) is %j', (layer, row, col, value) => {
     expect(item(layer, row, col)?.value).toEqual(value);
   });
@@ -117,6 +147,49 @@ describe('heat map option', () => {
     expect(series[0].data.at(-1)?.value.slice(0, 2)).toEqual([2, 1]);
   });
 
+  it('When a cell changes by a fraction, then the change is new over base, in percent', () => {
+    // 49/50 − 1 = −2 %: leaner, towards orange (0.5 + 2/20 = 0.6).
+    const [, , t, figure] = item('change', 0, 0)?.value ?? [];
+    expect(figure).toBeCloseTo(-2, 10);
+    expect(t).toBeCloseTo(0.6, 10);
+  });
+
+  it('When the preview has not arrived, then proposal and change show nothing, not the analysis', () => {
+    const waiting = { ...INPUT, preview: null };
+    expect(layerFigure({ ...waiting, layer: 'proposal' }, 0, 0)).toBeNull();
+    expect(layerFigure({ ...waiting, layer: 'change' }, 1, 1)).toBeNull();
+    expect(heatLegend({ ...waiting, layer: 'change' }).note).toContain(
+      'The figures appear once the preview is computed.',
+    );
+  });
+
+  it('When cells are measured, filled or held, then their labels and outlines tell them apart', () => {
+    // Filled: slanted figures where the layer shows what applies; measured stay upright.
+    expect(item('change', 1, 1)?.label.fontStyle).toBe('italic');
+    expect(item('proposal', 1, 1)?.label.fontStyle).toBe('italic');
+    expect(item('change', 0, 0)?.label.fontStyle).toBeUndefined();
+    expect(item('ve', 1, 1)?.label.fontStyle).toBeUndefined();
+    // Held: a dashed outline in the cell's text colour, on every layer.
+    for (const layer of ['change', 've'] as const) {
+      expect(item(layer, 1, 0)?.itemStyle).toMatchObject({ borderType: 'dashed', borderWidth: 2 });
+    }
+    expect(item('change', 1, 1)?.itemStyle).not.toHaveProperty('borderType');
+    expect(heatLegend({ ...INPUT, layer: 'change' }).marks).toBe(HEAT_ORIGIN_MARKS);
+    expect(heatLegend({ ...INPUT, layer: 've' }).marks).toBeUndefined();
+  });
+
+  it('When the option’s tooltip runs on a held cell, then it says it needs data', () => {
+    const option = heatMapOption({ ...INPUT, layer: 'change' }) as {
+      tooltip: { formatter: (p: unknown) => string };
+    };
+    expect(option.tooltip.formatter({ value: [0, 1, 0.5, 0] })).toBe(
+      '1000 rpm · 100 kPa\nChange 0.0 % (more fuel)\nHeld under load: needs data (keeps its value)',
+    );
+    expect(option.tooltip.formatter({ value: [1, 1, 0, 12.5] })).toBe(
+      '2000 rpm · 100 kPa\nChange +12.5 % (more fuel)\nFilled from the neighbours',
+    );
+  });
+
   it('When there is no analysis, then its layers show no figure', () => {
     const plain = { ...INPUT, analysis: null };
     expect(layerFigure({ ...plain, layer: 'change' }, 0, 0)).toBeNull();
@@ -125,11 +198,19 @@ describe('heat map option', () => {
 
   it.each<[HeatLayer, number, string]>([
     ['ve', 82.25, '2000 rpm · 100 kPa\nVE 82.3 %'],
-    ['proposal', 60, '2000 rpm · 100 kPa\nProposed VE 60.0 %'],
+    ['proposal', 60, '2000 rpm · 100 kPa\nApply writes VE 60.0 %'],
     ['change', -3.04, '2000 rpm · 100 kPa\nChange \u22123.0 % (less fuel)'],
     ['lambdaError', 6.44, '2000 rpm · 100 kPa\nLambda error ▲ +6.4 % lean'],
   ])('When the %s tooltip shows %p, then it reads %j', (layer, value, text) => {
     expect(heatTooltip(layer, 2000, 100, value)).toBe(text);
+  });
+
+  it.each<[HeatLayer, 'measured' | 'filled' | 'held', string]>([
+    ['proposal', 'measured', '2000 rpm · 100 kPa\nApply writes VE 60.0 %\nMeasured by the logs'],
+    ['ve', 'filled', '2000 rpm · 100 kPa\nVE 60.0 %'],
+    ['ve', 'held', '2000 rpm · 100 kPa\nVE 60.0 %\nHeld under load: needs data (keeps its value)'],
+  ])('When the %s tooltip is of a %s cell, then it reads %j', (layer, origin, text) => {
+    expect(heatTooltip(layer, 2000, 100, 60, origin)).toBe(text);
   });
 
   it('When the option’s own formatters run, then they give the cell’s text', () => {
@@ -151,5 +232,38 @@ describe('heat map option', () => {
     ['change', '+10 % VE up', '\u221210 % VE down'],
   ])('When the layer is %s, then the legend runs from %j to %j', (layer, low, high) => {
     expect(heatLegend({ ...INPUT, layer })).toMatchObject({ low, high });
+  });
+});
+
+/** The grid's change overlay and the heat map's change layer read the same preview alike. */
+describe('grid and plot agree', () => {
+  it('When both show the change, then every figure and every origin mark agree', () => {
+    const grid = overlayView({
+      kind: 'change',
+      values: VALUES,
+      baseValues: VALUES,
+      analysis: ANALYSIS,
+      preview: PREVIEW,
+    });
+    const series = heatMapOption({ ...INPUT, layer: 'change', selectedCell: null }).series as {
+      data: { value: number[]; label: { fontStyle?: string }; itemStyle: object }[];
+    }[];
+    const plotted = series[0].data;
+    expect(plotted).toHaveLength(6);
+    for (const { value, label, itemStyle } of plotted) {
+      const [col, row, , figure] = value;
+      const cell = grid.cells[row][col];
+      expect({ row, col, figure }).toEqual({ row, col, figure: cell.value });
+      expect({ row, col, slanted: label.fontStyle === 'italic' }).toEqual({
+        row,
+        col,
+        slanted: cell.origin === 'filled',
+      });
+      expect({ row, col, dashed: 'borderType' in itemStyle }).toEqual({
+        row,
+        col,
+        dashed: cell.isHeld,
+      });
+    }
   });
 });

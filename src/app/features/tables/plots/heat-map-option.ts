@@ -1,4 +1,5 @@
-import type { LegendView } from '../overlays';
+import { type LegendView, ORIGIN_LABEL } from '../overlays';
+import type { CellOrigin, PreviewResult } from '../proposal-preview-compute';
 /**
  * The table as an ECharts heat map: RPM across, MAP up, every cell coloured on our OKLab scales
  * (sequential for VE and proposal, diverging around zero for change and lambda error) and
@@ -64,8 +65,15 @@ export interface HeatMapInput {
   readonly mapAxisKpa: readonly number[];
   /** VE now, `[row][col]`. */
   readonly values: readonly (readonly number[])[];
+  /** VE of the revision the analysis ran on, `[row][col]`: what the change is measured from. */
+  readonly baseValues: readonly (readonly number[])[];
   /** The analysis, if any. */
   readonly analysis: AnalysisResource | null;
+  /**
+   * The live preview of applying the analysis: the proposal and change layers show what the
+   * apply would write, and nothing until it arrives (as the grid's overlays).
+   */
+  readonly preview: PreviewResult | null;
   /** The layer shown. */
   readonly layer: HeatLayer;
   /** The cell to outline. */
@@ -89,11 +97,17 @@ export function layerFigure(input: HeatMapInput, row: number, col: number): numb
       value = input.values[row]?.[col];
       break;
     case 'proposal':
-      value = input.analysis?.proposal[row]?.[col];
+      value = input.analysis ? input.preview?.values[row]?.[col] : null;
       break;
-    case 'change':
-      value = cell?.changePct;
+    case 'change': {
+      const proposed = input.analysis ? input.preview?.values[row]?.[col] : undefined;
+      const base = input.baseValues[row]?.[col];
+      value =
+        proposed === undefined || base === undefined || base === 0
+          ? null
+          : (proposed / base - 1) * 100;
       break;
+    }
     case 'lambdaError':
       value = cell?.lambdaErrorPct;
       break;
@@ -122,8 +136,18 @@ function position(layer: HeatLayer, value: number, [lo, hi]: [number, number]): 
 /** The sequential range of VE and proposal together. */
 function sequentialRange(input: HeatMapInput): [number, number] {
   const ve = input.values.flat();
-  const proposal = (input.analysis?.proposal ?? []).flat().filter((v) => v !== null);
+  const proposal = input.analysis ? (input.preview?.values ?? []).flat() : [];
   return extent(input.layer === 'proposal' ? [...ve, ...proposal] : ve);
+}
+
+/** Whether a layer shows what the apply writes, and so tells how each cell got there. */
+function showsOrigin(layer: HeatLayer): boolean {
+  return layer === 'proposal' || layer === 'change';
+}
+
+/** How the apply sets a cell, from the preview; null without one. */
+function originAt(input: HeatMapInput, row: number, col: number): CellOrigin | null {
+  return input.analysis ? (input.preview?.origin[row]?.[col] ?? null) : null;
 }
 
 /** The text of a figure in a cell (short: the tooltip says the rest). */
@@ -131,18 +155,29 @@ function cellText(layer: HeatLayer, value: number): string {
   return layer === 'change' || layer === 'lambdaError' ? signed(value) : value.toFixed(1);
 }
 
-/** The tooltip of a cell: its breakpoints, its figure and what the figure means. */
-export function heatTooltip(layer: HeatLayer, rpm: number, mapKpa: number, value: number): string {
+/**
+ * The tooltip of a cell: its breakpoints, its figure and what the figure means, and how the
+ * apply sets it (the proposal and change layers; a held cell says so on every layer).
+ */
+export function heatTooltip(
+  layer: HeatLayer,
+  rpm: number,
+  mapKpa: number,
+  value: number,
+  origin: CellOrigin | null = null,
+): string {
   const where = `${rpm} rpm · ${mapKpa} kPa`;
+  const how =
+    origin && (showsOrigin(layer) || origin === 'held') ? `\n${ORIGIN_LABEL[origin]}` : '';
   switch (layer) {
     case 've':
-      return `${where}\nVE ${value.toFixed(1)} %`;
+      return `${where}\nVE ${value.toFixed(1)} %${how}`;
     case 'proposal':
-      return `${where}\nProposed VE ${value.toFixed(1)} %`;
+      return `${where}\nApply writes VE ${value.toFixed(1)} %${how}`;
     case 'change':
-      return `${where}\nChange ${signed(value)} % (${value >= 0 ? 'more fuel' : 'less fuel'})`;
+      return `${where}\nChange ${signed(value)} % (${value >= 0 ? 'more fuel' : 'less fuel'})${how}`;
     case 'lambdaError':
-      return `${where}\nLambda error ${lambdaErrorText(value)}`;
+      return `${where}\nLambda error ${lambdaErrorText(value)}${how}`;
   }
 }
 
@@ -161,19 +196,33 @@ export function heatMapOption(input: HeatMapInput): HeatMapOption {
       const background = colourAt(diverging ? DIVERGING_STOPS : SEQUENTIAL_STOPS, t);
       const text = readableTextColour(background);
       const datum: HeatDatum = [c, r, t, value];
+      const origin = originAt(input, r, c);
+      // Filled cells have slanted figures where the layer shows what the apply writes (as in
+      // the grid); held ones a dashed outline in their text colour on every layer.
+      const label =
+        origin === 'filled' && showsOrigin(layer)
+          ? { color: text, fontStyle: 'italic' as const }
+          : { color: text };
       if (input.selectedCell?.row === r && input.selectedCell?.col === c) {
         // Outlined in its own text colour, which contrasts with the cell in either scheme.
         picked = {
           value: datum,
-          label: { color: text },
-          itemStyle: { borderColor: text, borderWidth: 3 },
+          label,
+          itemStyle: {
+            borderColor: text,
+            borderWidth: 3,
+            ...(origin === 'held' ? { borderType: 'dashed' as const } : {}),
+          },
         };
         return;
       }
       data.push({
         value: datum,
-        label: { color: text },
-        itemStyle: { borderColor: theme.surface, borderWidth: 1 },
+        label,
+        itemStyle:
+          origin === 'held'
+            ? { borderColor: text, borderWidth: 2, borderType: 'dashed' }
+            : { borderColor: theme.surface, borderWidth: 1 },
       });
     }),
   );
@@ -195,7 +244,8 @@ export function heatMapOption(input: HeatMapInput): HeatMapOption {
       formatter: (params) => {
         const value = (params as { value?: unknown }).value as HeatDatum | undefined;
         if (!value) return '';
-        return heatTooltip(layer, rpmAxis[value[0]], mapAxisKpa[value[1]], value[3]);
+        const origin = originAt(input, value[1], value[0]);
+        return heatTooltip(layer, rpmAxis[value[0]], mapAxisKpa[value[1]], value[3], origin);
       },
     },
     xAxis: {
@@ -248,8 +298,23 @@ export function heatMapOption(input: HeatMapInput): HeatMapOption {
   };
 }
 
-/** The legend of a layer, sequential ones labelled with the ends of their colour range. */
+/** How the origin marks read on the heat map. */
+export const HEAT_ORIGIN_MARKS =
+  'Upright figures: measured by the logs. Slanted figures: filled from the neighbours. Dashed outline: held under load, needs data (keeps its value). Hover a cell for its words.';
+
+/**
+ * The legend of a layer, sequential ones labelled with the ends of their colour range; the
+ * proposal and change layers add how their marks read, or say they wait for the preview.
+ */
 export function heatLegend(input: HeatMapInput): PlotLegend {
+  const legend = layerLegend(input);
+  if (!showsOrigin(input.layer)) return legend;
+  return input.preview
+    ? { ...legend, marks: HEAT_ORIGIN_MARKS }
+    : { ...legend, note: `${legend.note} The figures appear once the preview is computed.` };
+}
+
+function layerLegend(input: HeatMapInput): PlotLegend {
   const limit = DIVERGING_LIMIT_PCT;
   if (input.layer === 'lambdaError') {
     return {
@@ -266,7 +331,7 @@ export function heatLegend(input: HeatMapInput): PlotLegend {
       low: `+${limit} % VE up`,
       mid: '0',
       high: `${MINUS}${limit} % VE down`,
-      note: 'Proposed change of VE, in the colours of the fuel it adds: more fuel blue, less orange.',
+      note: 'Change of VE the apply would write with the panel’s options, in the colours of the fuel it adds: more fuel blue, less orange.',
     };
   }
   const [lo, hi] = sequentialRange(input);
@@ -278,6 +343,6 @@ export function heatLegend(input: HeatMapInput): PlotLegend {
     note:
       input.layer === 've'
         ? 'VE now, in percent; MAP rises upwards.'
-        : 'Proposed VE on the same colours as VE now.',
+        : 'VE the apply would write with the panel’s options, on the same colours as VE now.',
   };
 }

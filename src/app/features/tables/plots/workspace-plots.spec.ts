@@ -17,6 +17,8 @@ import type {
   AnalysisSamples,
 } from '../../../core/api/analyses-api';
 import { noAnimations } from '../../../../testing/harness-helpers';
+import { ASSUMED_GUARD } from '../../../../testing/table-fixtures';
+import type { PreviewResult } from '../proposal-preview-compute';
 import type { CellRef } from './plot-format';
 import { WorkspacePlots } from './workspace-plots';
 
@@ -78,7 +80,22 @@ const ANALYSIS: AnalysisResource = {
   ],
   filterReport: { logs: [] },
   leanFlags: [],
+  guard: ASSUMED_GUARD,
   createdAt: '2026-03-01T10:00:00.000Z',
+};
+
+/** What the apply would write: the 100 kPa row held at 1000 rpm, filled richer at 3000 rpm. */
+const PREVIEW: PreviewResult = {
+  values: [
+    [51, 55, 60],
+    [70, 80, 93.5],
+  ],
+  origin: [
+    ['measured', 'unchanged', 'unchanged'],
+    ['held', 'unchanged', 'filled'],
+  ],
+  heldCount: 1,
+  guard: { loadLineKpa: 91.19, leanAllowance: 0.01 },
 };
 
 const SAMPLES: AnalysisSamples = {
@@ -230,6 +247,42 @@ describe('WorkspacePlots', () => {
     expect(await (await tabs.getSelectedTab()).getTextContent()).toContain(
       'Log l1 of this analysis is gone',
     );
+  });
+
+  it('When the change layer shows a preview, then its figures are what the apply writes', async () => {
+    fixture.componentRef.setInput('analysis', ANALYSIS);
+    fixture.componentRef.setInput('baseValues', [
+      [50, 55, 60],
+      [70, 80, 85],
+    ]);
+    fixture.componentRef.setInput('preview', PREVIEW);
+    await fixture.whenStable();
+    await (await loader.getHarness(MatButtonToggleHarness.with({ text: 'Change %' }))).check();
+    await settleCharts(fixture);
+    const latest = charts[0].options.at(-1) as { series: { data: { value: number[] }[] }[] };
+    const figures = latest.series[0].data
+      .map(({ value }) => [value[1], value[0], Number(value[3].toFixed(6))])
+      .sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+    // 51/50 → +2 %, 93.5/85 → +10 %, the rest 0: not the analysis's changePct (2, −1, 0, 4, 1, −3).
+    expect(figures).toEqual([
+      [0, 0, 2],
+      [0, 1, 0],
+      [0, 2, 0],
+      [1, 0, 0],
+      [1, 1, 0],
+      [1, 2, 10],
+    ]);
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain(
+      'Dashed outline: held under load, needs data',
+    );
+
+    // The held cell's detail says so.
+    charts[0].handlers.get('click')?.({ value: [0, 1, 0.5, 0] });
+    const tabs = await loader.getHarness(MatTabGroupHarness);
+    await tabs.selectTab({ label: 'Cell' });
+    const text = await (await tabs.getSelectedTab()).getTextContent();
+    expect(text).toContain('Held under load: needs data (keeps its value)');
+    expect(text).toContain('Needs data: at or above the load line (91.2 kPa)');
   });
 
   it('When Curves and a layer are chosen, then the chart shows lines and the layer', async () => {

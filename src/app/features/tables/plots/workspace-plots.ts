@@ -29,6 +29,7 @@ import { curvesOption } from './curves-option';
 import { HEAT_LAYERS, type HeatLayer, heatLegend, heatMapOption } from './heat-map-option';
 import { type CellRef, nearestCell } from './plot-format';
 import { ColourLegend } from '../colour-legend';
+import type { PreviewResult } from '../proposal-preview-compute';
 import { type SampleDatum, samplesCaption, samplesLegend, scatterOption } from './scatter-option';
 
 /** The tabs, in order. */
@@ -80,6 +81,11 @@ export class WorkspacePlots {
   readonly baseValues = input<readonly (readonly number[])[]>([]);
   /** The analysis shown, if any. */
   readonly analysis = input<AnalysisResource | null>(null);
+  /**
+   * The live preview of applying the analysis: the proposal and change layers, the curves'
+   * dashed line and the cell detail show what the apply would write, as the grid does.
+   */
+  readonly preview = input<PreviewResult | null>(null);
   /** The table's vehicle, for the airflow and duty of a cell. */
   readonly vehicle = input<Vehicle | null>(null);
   /** The picked cell (from the grid or an earlier pick). */
@@ -127,7 +133,9 @@ export class WorkspacePlots {
     rpmAxis: this.rpmAxis(),
     mapAxisKpa: this.mapAxisKpa(),
     values: this.values(),
+    baseValues: this.baseValues(),
     analysis: this.analysis(),
+    preview: this.preview(),
     layer: this.layer(),
     selectedCell: this.picked(),
     theme: this.theme(),
@@ -142,7 +150,7 @@ export class WorkspacePlots {
       rpmAxis: this.rpmAxis(),
       mapAxisKpa: this.mapAxisKpa(),
       values: this.values(),
-      analysis: this.analysis(),
+      proposal: this.analysis() ? (this.preview()?.values ?? null) : null,
       selectedCell: this.picked(),
       theme: this.theme(),
     }),
