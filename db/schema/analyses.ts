@@ -22,13 +22,13 @@ export const analyses = pgTable(
       .notNull()
       .references(() => revisions.id, { onDelete: 'cascade' }),
     logIds: uuid('log_ids').array().notNull(),
-    settings: jsonb('settings').$type<Record<string, unknown>>().notNull(),
+    settings: jsonb('settings').$type<object>().notNull(),
     /** Per-cell results, grids as `[row][col]` arrays (null for "no value"). */
-    cells: jsonb('cells').$type<Record<string, unknown>>().notNull(),
+    cells: jsonb('cells').$type<object>().notNull(),
     /** The proposal: values, ratio, change %, status per cell. */
-    proposal: jsonb('proposal').$type<Record<string, unknown>>().notNull(),
+    proposal: jsonb('proposal').$type<object>().notNull(),
     /** Per log: samples, kept, the funnel and the delay used. */
-    filterReport: jsonb('filter_report').$type<Record<string, unknown>>().notNull(),
+    filterReport: jsonb('filter_report').$type<object>().notNull(),
     /** Cells measured leaner than commanded under load. */
     leanFlags: jsonb('lean_flags').$type<unknown[]>().notNull(),
     createdBy: uuid('created_by')

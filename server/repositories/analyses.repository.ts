@@ -1,13 +1,36 @@
 import { and, count, desc, eq, sql } from 'drizzle-orm';
-import { analyses, revisions, users, type AnalysisRow, type NewAnalysisRow } from '../../db/schema';
-import type { AnalysisSummary, ListAnalysesQuery } from '../../shared/contracts/analyses';
+import { analyses, revisions, users, type AnalysisRow } from '../../db/schema';
+import {
+  analysisSettingsSchema,
+  type AnalysisSummary,
+  type ListAnalysesQuery,
+} from '../../shared/contracts/analyses';
 import type { Executor } from '../db';
+import { storedAnalysisJsonSchema, type StoredAnalysis } from './stored-analysis';
 
-/** Stores an analysis and returns its row. */
-export async function insertAnalysis(db: Executor, values: NewAnalysisRow): Promise<AnalysisRow> {
+/** A row with its JSON parsed by the stored schemas. */
+function toStored(row: AnalysisRow): StoredAnalysis {
+  const json = storedAnalysisJsonSchema.parse(row);
+  return {
+    id: row.id,
+    shopId: row.shopId,
+    tableId: row.tableId,
+    baseRevisionId: row.baseRevisionId,
+    logIds: row.logIds,
+    createdBy: row.createdBy,
+    createdAt: row.createdAt,
+    ...json,
+  };
+}
+
+/** Stores an analysis and returns it as read back. */
+export async function insertAnalysis(
+  db: Executor,
+  values: Omit<StoredAnalysis, 'id' | 'createdAt'>,
+): Promise<StoredAnalysis> {
   const [row] = await db.insert(analyses).values(values).returning();
   if (!row) throw new Error('insertAnalysis: no row returned');
-  return row;
+  return toStored(row);
 }
 
 /** One analysis of a shop, or null. */
@@ -15,13 +38,13 @@ export async function findAnalysis(
   db: Executor,
   shopId: string,
   id: string,
-): Promise<AnalysisRow | null> {
+): Promise<StoredAnalysis | null> {
   const rows = await db
     .select()
     .from(analyses)
     .where(and(eq(analyses.shopId, shopId), eq(analyses.id, id)))
     .limit(1);
-  return rows[0] ?? null;
+  return rows[0] ? toStored(rows[0]) : null;
 }
 
 /**
@@ -62,6 +85,7 @@ export async function listAnalysesOfTable(
   return {
     items: rows.map((row) => ({
       ...row,
+      settings: analysisSettingsSchema.parse(row.settings),
       trustedCells: Number(row.trustedCells),
       leanFlagCount: Number(row.leanFlagCount),
       createdAt: row.createdAt.toISOString(),

@@ -1,10 +1,10 @@
-import type { AnalysisRow } from '../../db/schema';
 import type {
+  AnalysisResource,
   AnalysisSummary,
   CreateAnalysisRequest,
+  FilterReport,
   ListAnalysesQuery,
 } from '../../shared/contracts/analyses';
-import type { AppliedGuard } from '../../shared/contracts/tables';
 import type { Vehicle } from '../../shared/contracts/vehicles';
 import type { VeTable } from '../../shared/core/table';
 import { analyseLogs, type AnalysisLog, type AnalysisSettings } from '../../shared/pipeline';
@@ -22,49 +22,21 @@ import { findTable } from '../repositories/tables.repository';
 import type { SessionUserRecord } from '../repositories/users.repository';
 import { findVehicle } from '../repositories/vehicles.repository';
 import { analysisGuard, revisionTable, vehicleOfTable } from './analysis-context';
-import {
-  cellResults,
-  storeAnalysis,
-  type CellResult,
-  type StoredCells,
-  type StoredProposal,
-} from './analysis-json';
+import type { StoredAnalysis } from '../repositories/stored-analysis';
+import { cellResults, storeAnalysis } from './analysis-json';
+
+export type { AnalysisResource } from '../../shared/contracts/analyses';
 import { loadLogChannels } from './logs.service';
 
-/** An analysis as the API answers it. */
-export interface AnalysisResource {
-  id: string;
-  tableId: string;
-  baseRevisionId: string;
-  logIds: string[];
-  settings: Record<string, unknown>;
-  /** Per-cell results `[row][col]`. */
-  cells: CellResult[][];
-  /** Proposed VE `[row][col]` (null where the table has no value). */
-  proposal: (number | null)[][];
-  /** Per log: samples, kept, the filter funnel, the delay estimate and the delay used. */
-  filterReport: Record<string, unknown>;
-  /** Cells measured leaner than commanded under load, with their size. */
-  leanFlags: unknown[];
-  /**
-   * The fuel-safety guard an apply of this analysis runs with by default: the vehicle's load line
-   * and allowance over the barometric pressure the logs were recorded at.
-   */
-  guard: AppliedGuard;
-  createdAt: string;
-}
-
-function toResource(row: AnalysisRow, vehicle: Vehicle): AnalysisResource {
-  const cells = row.cells as unknown as StoredCells;
-  const proposal = row.proposal as unknown as StoredProposal;
+function toResource(row: StoredAnalysis, vehicle: Vehicle): AnalysisResource {
   return {
     id: row.id,
     tableId: row.tableId,
     baseRevisionId: row.baseRevisionId,
     logIds: row.logIds,
     settings: row.settings,
-    cells: cellResults(cells, proposal),
-    proposal: proposal.values,
+    cells: cellResults(row.cells, row.proposal),
+    proposal: row.proposal.values,
     filterReport: row.filterReport,
     leanFlags: row.leanFlags,
     guard: analysisGuard(row, vehicle),
@@ -128,12 +100,12 @@ export async function createAnalysis(
   }
   const stored = storeAnalysis(analysis);
   const logIds = [...new Set(body.logIds)];
-  const filterReport = {
+  const filterReport: FilterReport = {
     logs: analysis.logs.map((contribution, i) => ({
-      logId: logIds[i],
+      logId: logIds[i] as string,
       samples: contribution.samples,
       kept: contribution.kept,
-      funnel: contribution.funnel,
+      funnel: contribution.funnel.map((line) => ({ ...line })),
       delayUsed: contribution.delayUsed,
       delayEstimate: contribution.delayEstimate && {
         tau0S: contribution.delayEstimate.tau0S,
@@ -154,10 +126,13 @@ export async function createAnalysis(
     baseRevisionId: base.id,
     logIds,
     settings: body.settings ?? {},
-    cells: stored.cells as unknown as Record<string, unknown>,
-    proposal: stored.proposal as unknown as Record<string, unknown>,
+    cells: stored.cells,
+    proposal: stored.proposal,
     filterReport,
-    leanFlags: [...analysis.leanFlags],
+    leanFlags: analysis.leanFlags.map((flag) => ({
+      ...flag,
+      worstLeanPercent: Number.isNaN(flag.worstLeanPercent) ? null : flag.worstLeanPercent,
+    })),
     createdBy: actor.id,
   });
   await recordAudit(db, {

@@ -1,13 +1,13 @@
 import type { ApplyAnalysisRequest } from '../../shared/contracts/analyses';
 import type { AppliedRecord, Revision } from '../../shared/contracts/tables';
-import { applyAnalysis, type AnalysisSettings } from '../../shared/pipeline';
+import { applyAnalysis } from '../../shared/pipeline';
 import type { Database } from '../db';
 import { notFound } from '../errors/app-error';
 import { invalidInput } from '../errors/invalid-input';
 import { findAnalysis } from '../repositories/analyses.repository';
 import { findRevision } from '../repositories/revisions.repository';
 import type { SessionUserRecord } from '../repositories/users.repository';
-import { storedEvidence, type StoredCells } from './analysis-json';
+import { storedEvidence } from './analysis-json';
 import { analysisGuard, revisionTable, vehicleOfTable } from './analysis-context';
 import { addRevision } from './revisions.service';
 
@@ -57,11 +57,11 @@ export async function applyStoredAnalysis(
   const vehicle = await vehicleOfTable(db, actor.shopId, row.tableId);
   const rows = baseTable.mapAxisKpa.length;
   const cols = baseTable.rpmAxis.length;
-  const settings = row.settings as AnalysisSettings;
+  const settings = row.settings;
   const guard = body.guard === false ? null : analysisGuard(row, vehicle);
   const step = body.stepFraction ?? 0.5;
   const smooth = body.smooth ?? DEFAULT_APPLY_SMOOTH;
-  const applied = applyAnalysis(baseTable, storedEvidence(row.cells as unknown as StoredCells), {
+  const applied = applyAnalysis(baseTable, storedEvidence(row.cells), {
     stepFraction: step,
     smooth,
     fill: body.fill,

@@ -1,4 +1,3 @@
-import type { AnalysisRow } from '../../db/schema';
 import type { AppliedGuard, Revision } from '../../shared/contracts/tables';
 import type { Vehicle } from '../../shared/contracts/vehicles';
 import type { VeTable } from '../../shared/core/table';
@@ -7,19 +6,20 @@ import type { BaroEstimate } from '../../shared/pipeline';
 import type { Database } from '../db';
 import { notFound } from '../errors/app-error';
 import { findTable } from '../repositories/tables.repository';
+import type { StoredAnalysis } from '../repositories/stored-analysis';
 import { findVehicle } from '../repositories/vehicles.repository';
 
 // What an analysis needs from around it: its vehicle, the fuel-safety guard on that vehicle, and
 // the table of a revision. Shared by running, reading and applying analyses.
 
 /** The barometric pressure an analysis stored; analyses from before it was kept assume ISA. */
-export function storedBaro(row: AnalysisRow): BaroEstimate {
-  const baro = (row.filterReport as { baro?: BaroEstimate }).baro;
+export function storedBaro(row: StoredAnalysis): BaroEstimate {
+  const baro = row.filterReport.baro;
   return baro && baro.kpa > 0 ? baro : { kpa: STANDARD_BARO_KPA, source: 'assumed' };
 }
 
 /** The guard of an analysis on a vehicle: the vehicle's settings over the logs' pressure. */
-export function analysisGuard(row: AnalysisRow, vehicle: Vehicle): AppliedGuard {
+export function analysisGuard(row: StoredAnalysis, vehicle: Vehicle): AppliedGuard {
   const baro = storedBaro(row);
   const { loadLinePercentOfBaro, leanAllowancePercent } = vehicle.fuelSafety;
   return {

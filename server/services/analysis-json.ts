@@ -2,37 +2,9 @@ import type { CellStats } from '../../shared/accumulate';
 import type { AnalysisCell } from '../../shared/contracts/analyses';
 import { gridToJsonRows, jsonRowsToGrid, type Grid } from '../../shared/core/table';
 import type { Analysis } from '../../shared/pipeline';
+import { type StoredCellGrid, type StoredCells, type StoredProposal } from '../repositories/stored-analysis';
 
-/** The per-cell grids an analysis keeps, as JSON rows (null = no value). */
-export const STORED_CELL_GRIDS = [
-  'count',
-  'weight',
-  'ratio',
-  'spread',
-  'effectiveCount',
-  'lambdaError',
-  'worstLean',
-  'lambdaMeasured',
-  'lambdaCommanded',
-] as const;
-
-/** One stored grid's name. */
-export type StoredCellGrid = (typeof STORED_CELL_GRIDS)[number];
-
-/** How an analysis's per-cell results are stored. */
-export type StoredCells = Record<StoredCellGrid, (number | null)[][]>;
-
-/** How an analysis's proposal is stored. */
-export interface StoredProposal {
-  /** Proposed VE, `[row][col]`. */
-  values: (number | null)[][];
-  /** Applied ratio. */
-  ratio: (number | null)[][];
-  /** Change in %. */
-  changePercent: (number | null)[][];
-  /** Status per cell, `[row][col]`. */
-  status: string[][];
-}
+export type { StoredCells, StoredProposal } from '../repositories/stored-analysis';
 
 /** The results of one cell as the API shows them. */
 export type CellResult = AnalysisCell;
@@ -49,9 +21,18 @@ export function storeAnalysis(analysis: Analysis): {
   cells: StoredCells;
   proposal: StoredProposal;
 } {
-  const cells = Object.fromEntries(
-    STORED_CELL_GRIDS.map((name) => [name, gridToJsonRows(analysis.cells[name])]),
-  ) as StoredCells;
+  const grid = (name: StoredCellGrid) => gridToJsonRows(analysis.cells[name]);
+  const cells: StoredCells = {
+    count: grid('count'),
+    weight: grid('weight'),
+    ratio: grid('ratio'),
+    spread: grid('spread'),
+    effectiveCount: grid('effectiveCount'),
+    lambdaError: grid('lambdaError'),
+    worstLean: grid('worstLean'),
+    lambdaMeasured: grid('lambdaMeasured'),
+    lambdaCommanded: grid('lambdaCommanded'),
+  };
   const { proposal } = analysis;
   return {
     cells,

@@ -140,7 +140,7 @@ export async function analysisSamples(
     mapAxisKpa: table.mapAxisKpa,
     values: base.values,
   };
-  const settings = row.settings as AnalysisSettings;
+  const settings: AnalysisSettings = row.settings;
   const rules = settings.filters ?? DEFAULT_FILTER_RULES;
   const report = storedReportSchema.parse(row.filterReport);
 

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { delayUsedSchema, funnelLineSchema } from './logs';
+import { appliedGuardSchema } from './tables';
 
 const seconds = z.number().min(0).max(30);
 
@@ -109,32 +111,149 @@ export const applyAnalysisRequestSchema = z
 export type ApplyAnalysisRequest = z.infer<typeof applyAnalysisRequestSchema>;
 
 /** The results of one cell of an analysis (null figures where the cell saw no data). */
-export interface AnalysisCell {
+export const analysisCellSchema = z.object({
   /** Samples touching the cell. */
-  samples: number;
+  samples: z.number(),
   /** Total bilinear weight (the cell's coverage). */
-  weight: number;
+  weight: z.number(),
   /** Weighted mean correction ratio. */
-  ratio: number | null;
+  ratio: z.number().nullable(),
   /** Weighted spread of the ratio. */
-  spread: number | null;
+  spread: z.number().nullable(),
   /** Effective sample count. */
-  effectiveCount: number;
+  effectiveCount: z.number(),
   /** Weighted mean lambda error in %, positive = leaner than commanded. */
-  lambdaErrorPct: number | null;
+  lambdaErrorPct: z.number().nullable(),
   /** Worst lean excursion under load, %. */
-  worstLeanPct: number | null;
+  worstLeanPct: z.number().nullable(),
   /** Mean measured lambda. */
-  lambdaMeasured: number | null;
+  lambdaMeasured: z.number().nullable(),
   /** Mean commanded lambda. */
-  lambdaCommanded: number | null;
+  lambdaCommanded: z.number().nullable(),
   /** Proposed VE at the analysis's step fraction. */
-  proposal: number | null;
+  proposal: z.number().nullable(),
   /** Proposed change of VE in %, positive = VE up. */
-  changePct: number | null;
+  changePct: z.number().nullable(),
   /** `trusted`, `too_little_data`, `locked` or `no_data`. */
-  status: string;
-}
+  status: z.enum(['trusted', 'too_little_data', 'locked', 'no_data']),
+});
+
+/** The results of one cell of an analysis. */
+export type AnalysisCell = z.infer<typeof analysisCellSchema>;
+
+/** How loudly a lean cell is shown. */
+export const LEAN_SEVERITIES = ['watch', 'warn', 'abort'] as const;
+
+/**
+ * `abort` ("stop": stop loading the engine there until it is richer), `warn` ("warning": richen
+ * it before the next full-load run), both on a cell with the weight a proposal trusts; `watch`:
+ * as lean, but on too little data to act on (log the cell again).
+ */
+export type LeanSeverity = (typeof LEAN_SEVERITIES)[number];
+
+/** A cell measured leaner than commanded under load. */
+export const leanFlagSchema = z.object({
+  /** Row (MAP breakpoint index). */
+  row: z.number().int(),
+  /** Column (RPM breakpoint index). */
+  col: z.number().int(),
+  /** The cell's RPM breakpoint. */
+  rpm: z.number(),
+  /** The cell's MAP breakpoint, kPa. */
+  mapKpa: z.number(),
+  /** Weighted mean lean error, %. */
+  leanPercent: z.number(),
+  /** Worst single lean excursion, % (null when no sample under load touched it). */
+  worstLeanPercent: z.number().nullable(),
+  /** The cell's weight: how much data the flag rests on. */
+  weight: z.number(),
+  /** See {@link LeanSeverity}. */
+  severity: z.enum(LEAN_SEVERITIES),
+});
+
+/** A cell measured leaner than commanded under load. */
+export type LeanFlag = z.infer<typeof leanFlagSchema>;
+
+/** The barometric pressure an analysis found in its logs, and where it came from. */
+export const analysisBaroSchema = z.object({
+  /** Barometric pressure, kPa absolute. */
+  kpa: z.number(),
+  /** The logs' barometer, MAP with the engine stopped, or assumed (standard sea level). */
+  source: z.enum(['logged', 'engine_off', 'assumed']),
+});
+
+/** The barometric pressure an analysis found in its logs. */
+export type AnalysisBaro = z.infer<typeof analysisBaroSchema>;
+
+/** What one log contributed to an analysis. */
+export const logFilterReportSchema = z.object({
+  /** The log. */
+  logId: z.string(),
+  /** Samples in the log. */
+  samples: z.number(),
+  /** Samples kept by the filters. */
+  kept: z.number(),
+  /** The filter funnel, rule by rule. */
+  funnel: z.array(funnelLineSchema),
+  /** The wideband delay applied. */
+  delayUsed: delayUsedSchema,
+  /** The log's own delay estimate (null when estimation was off). */
+  delayEstimate: z
+    .object({
+      tau0S: z.number(),
+      kGrams: z.number(),
+      method: z.string(),
+      quality: z.string(),
+      reason: z.string().optional(),
+      events: z.number(),
+    })
+    .nullable()
+    .optional(),
+});
+
+/** What one log contributed to an analysis. */
+export type LogFilterReport = z.infer<typeof logFilterReportSchema>;
+
+/** What the filters did, log by log, and what the analysis counted. */
+export const filterReportSchema = z.object({
+  logs: z.array(logFilterReportSchema),
+  /** Kept samples spread over the table. */
+  samplesUsed: z.number().optional(),
+  /** Cells with enough data to be trusted. */
+  cellsTrusted: z.number().optional(),
+  /** The barometric pressure behind the guard's load line (absent on older analyses). */
+  baro: analysisBaroSchema.optional(),
+});
+
+/** What the filters did. */
+export type FilterReport = z.infer<typeof filterReportSchema>;
+
+/** An analysis as `POST /api/tables/:id/analyses` and `GET /api/analyses/:id` answer it. */
+export const analysisResourceSchema = z.object({
+  id: z.string(),
+  tableId: z.string(),
+  /** The revision the proposal starts from. */
+  baseRevisionId: z.string(),
+  /** The logs analysed. */
+  logIds: z.array(z.string()),
+  /** The settings it ran with (empty: the defaults). */
+  settings: analysisSettingsSchema,
+  /** Per-cell results `[row][col]`. */
+  cells: z.array(z.array(analysisCellSchema)),
+  /** Proposed VE `[row][col]` (null where the table has no value). */
+  proposal: z.array(z.array(z.number().nullable())),
+  /** Per log: samples, kept, the filter funnel, the delay estimate and the delay used. */
+  filterReport: filterReportSchema,
+  /** Cells measured leaner than commanded under load: stop, then warning, then watch. */
+  leanFlags: z.array(leanFlagSchema),
+  /** The fuel-safety guard an apply uses unless the user turns it off (`guard: false`). */
+  guard: appliedGuardSchema,
+  /** When it ran, ISO 8601. */
+  createdAt: z.string(),
+});
+
+/** An analysis as the API answers it. */
+export type AnalysisResource = z.infer<typeof analysisResourceSchema>;
 
 /** Query of `GET /api/tables/:id/analyses`: paging of the table's analyses, newest first. */
 export const listAnalysesQuerySchema = z.object({
@@ -167,7 +286,7 @@ export interface AnalysisSummary {
   /** The logs analysed. */
   logIds: string[];
   /** The settings it ran with (empty: the defaults). */
-  settings: Record<string, unknown>;
+  settings: AnalysisSettingsBody;
   /** When it ran, ISO 8601. */
   createdAt: string;
   /** Cells with enough data to be trusted. */

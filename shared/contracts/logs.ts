@@ -312,6 +312,8 @@ export const funnelLineSchema = z.object({
   label: z.string(),
   status: z.enum(['applied', 'skipped']),
   note: z.string().optional(),
+  /** What the rule found in the log itself (the fuel-cut rule: the lambda ceiling). */
+  detail: z.object({ ceilingLambda: z.number().optional() }).optional(),
   removed: z.number(),
   remaining: z.number(),
 });

@@ -1,10 +1,11 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { logs } from '../../db/schema';
-import type {
-  AnalysisCell,
-  AnalysisSamples,
-  AnalysisSummary,
+import {
+  analysisResourceSchema,
+  type AnalysisSamples,
+  type AnalysisSummary,
+  type AnalysisResource,
 } from '../../shared/contracts/analyses';
 import { locate } from '../../shared/core/lookup';
 import { csvText, DEMO_HATCH, ecuVeTable, simulateSamples, type CsvStyle } from '../../shared/sim';
@@ -30,12 +31,8 @@ const vehicleFacts = {
 };
 
 /** The analysis fields this file reads. */
-interface AnalysisBody {
-  id: string;
-  cells: AnalysisCell[][];
-  leanFlags: unknown[];
-  filterReport: { cellsTrusted: number; samplesUsed: number };
-}
+/** The analysis as the API answers it: parsed by the shared contract, so a drift fails here. */
+type AnalysisBody = AnalysisResource;
 
 /** The trusted cell with the most weight among those at least 1 % off commanded lambda. */
 function wellCoveredCell(analysis: AnalysisBody) {
@@ -106,7 +103,7 @@ describe('analyses: list and samples', () => {
       settings,
     });
     expect(res.status).toBe(201);
-    return res.body as AnalysisBody;
+    return analysisResourceSchema.parse(res.body);
   }
 
   beforeAll(async () => {
@@ -150,8 +147,7 @@ describe('analyses: list and samples', () => {
           settings: {},
           createdAt: expect.any(String),
           trustedCells: first.filterReport.cellsTrusted,
-          leanFlagCount: first.leanFlags.filter((f: { severity: string }) => f.severity !== 'watch')
-            .length,
+          leanFlagCount: first.leanFlags.filter((f) => f.severity !== 'watch').length,
           authorName: `tuner of ${shop.name.replace('Test shop ', '')}`,
         });
         expect(items[0]?.settings).toEqual({ stepFraction: 0.3 });

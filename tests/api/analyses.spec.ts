@@ -1,4 +1,5 @@
-import type { Revision } from '../../shared/contracts/tables';
+import { analysisResourceSchema } from '../../shared/contracts/analyses';
+import { revisionSchema, type Revision } from '../../shared/contracts/tables';
 import type { VeTable } from '../../shared/core/table';
 import {
   csvText,
@@ -120,7 +121,8 @@ describe('analyses', () => {
         logIds,
       });
       expect(created.status).toBe(201);
-      const analysis = created.body;
+      // The answer is exactly the shared contract (server and client both use it).
+      const analysis = analysisResourceSchema.parse(created.body);
       expect(analysis.cells).toHaveLength(16);
       expect(analysis.cells[0]).toHaveLength(16);
       expect(analysis.proposal).toHaveLength(16);
@@ -131,7 +133,7 @@ describe('analyses', () => {
 
       const applied = await tuner.post(`/api/analyses/${analysis.id}/apply`, { stepFraction: 1 });
       expect(applied.status).toBe(201);
-      const revision = applied.body as Revision;
+      const revision = revisionSchema.parse(applied.body);
       expect(revision).toMatchObject({ number: 2, status: 'draft', parentId: baseRevisionId });
       expect(revision.analysisId).toBe(analysis.id);
 

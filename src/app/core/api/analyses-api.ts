@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 import type {
-  AnalysisCell,
+  AnalysisResource,
   AnalysisSamples,
   AnalysisSummary,
   ApplyAnalysisRequest,
@@ -11,7 +11,17 @@ import type {
 import type { ListResponse } from '@shared/contracts/errors';
 import type { AppliedGuard, Revision } from '@shared/contracts/tables';
 
-export type { AnalysisCell, AnalysisSamples, AnalysisSummary } from '@shared/contracts/analyses';
+export type {
+  AnalysisBaro,
+  AnalysisCell,
+  AnalysisResource,
+  AnalysisSamples,
+  AnalysisSummary,
+  LeanFlag,
+  LeanSeverity,
+  LogFilterReport,
+} from '@shared/contracts/analyses';
+export type { FunnelLine } from '@shared/contracts/logs';
 
 /**
  * The fuel-safety guard an apply of an analysis runs with by default: the vehicle's load line
@@ -19,105 +29,12 @@ export type { AnalysisCell, AnalysisSamples, AnalysisSummary } from '@shared/con
  */
 export type AnalysisGuard = AppliedGuard;
 
-/** The barometric pressure an analysis found in its logs, and where it came from. */
-export interface AnalysisBaro {
-  /** Barometric pressure, kPa absolute. */
-  kpa: number;
-  /** The logs' barometer, MAP with the engine off, or assumed (standard sea-level pressure). */
-  source: AppliedGuard['baroSource'];
-}
-
 /** Paging of `GET /api/tables/:id/analyses`; absent fields take the server's defaults. */
 export interface AnalysisListQuery {
   /** Page size, 1–100 (server default 20). */
   limit?: number;
   /** How many of the newest to skip. */
   offset?: number;
-}
-
-/** One line of a log's filter funnel. */
-export interface FunnelLine {
-  /** The rule's kind. */
-  rule: string;
-  /** The rule in words, with its limits. */
-  label: string;
-  /** `skipped` when the log lacks a channel the rule needs. */
-  status: 'applied' | 'skipped';
-  /** Samples this rule removed. */
-  removed: number;
-  /** Samples still kept after it. */
-  remaining: number;
-}
-
-/** What one log contributed to an analysis. */
-export interface LogFilterReport {
-  /** The log. */
-  logId: string;
-  /** Samples in the log. */
-  samples: number;
-  /** Samples kept by the filters. */
-  kept: number;
-  /** The filter funnel, rule by rule. */
-  funnel: FunnelLine[];
-  /** The wideband delay applied. */
-  delayUsed: { tau0S: number; kGrams: number; source: 'estimate' | 'settings' };
-}
-
-/** A cell measured leaner than commanded under load. */
-export interface LeanFlag {
-  /** Row (MAP breakpoint index). */
-  row: number;
-  /** Column (RPM breakpoint index). */
-  col: number;
-  /** The cell's RPM breakpoint. */
-  rpm: number;
-  /** The cell's MAP breakpoint, kPa. */
-  mapKpa: number;
-  /** Weighted mean lean error, %. */
-  leanPercent: number;
-  /** Worst single lean excursion, % (null when no sample under load touched it). */
-  worstLeanPercent: number | null;
-  /** The cell's weight: how much data the flag rests on. */
-  weight: number;
-  /**
-   * `abort` ("stop": stop loading the engine there until it is richer), `warn` ("warning":
-   * richen it before the next full-load run), both on a cell with the weight a proposal trusts;
-   * `watch`: as lean, but on too little data to act on (log the cell again).
-   */
-  severity: LeanSeverity;
-}
-
-/** How loudly a lean flag is shown; see `LeanFlag.severity`. */
-export type LeanSeverity = 'watch' | 'warn' | 'abort';
-
-/** An analysis as `POST /api/tables/:id/analyses` and `GET /api/analyses/:id` answer it. */
-export interface AnalysisResource {
-  /** The analysis id. */
-  id: string;
-  /** Its table. */
-  tableId: string;
-  /** The revision the proposal starts from. */
-  baseRevisionId: string;
-  /** The logs analysed. */
-  logIds: string[];
-  /** Per-cell results `[row][col]`. */
-  cells: AnalysisCell[][];
-  /** Proposed VE `[row][col]`. */
-  proposal: (number | null)[][];
-  /** Per log: samples, kept, funnel and delay used. */
-  filterReport: {
-    logs: LogFilterReport[];
-    samplesUsed?: number;
-    cellsTrusted?: number;
-    /** The barometric pressure behind the guard's load line (absent on older analyses). */
-    baro?: AnalysisBaro;
-  };
-  /** Cells measured leaner than commanded under load: stop, then warning, then watch. */
-  leanFlags: LeanFlag[];
-  /** The fuel-safety guard an apply uses unless the user turns it off (`guard: false`). */
-  guard: AnalysisGuard;
-  /** When it ran. */
-  createdAt: string;
 }
 
 /**

@@ -2,8 +2,6 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 import type { ListResponse } from '@shared/contracts/errors';
-import type { LogResource } from '@shared/contracts/logs';
-import type { RevisionSummary, VeTableResource } from '@shared/contracts/tables';
 import type {
   CreateVehicleInput,
   ListVehiclesQuery,
@@ -55,26 +53,5 @@ export class VehiclesApi {
   /** `PATCH /api/vehicles/:id` (tuner, admin): any subset of the creation body. */
   update(id: string, body: UpdateVehicleRequest): Observable<Vehicle> {
     return this.http.patch<Vehicle>(`/api/vehicles/${encodeURIComponent(id)}`, body);
-  }
-
-  /** `GET /api/vehicles/:id/tables`: the vehicle's VE tables, oldest first. */
-  tables(vehicleId: string): Observable<ListResponse<VeTableResource>> {
-    return this.http.get<ListResponse<VeTableResource>>(
-      `/api/vehicles/${encodeURIComponent(vehicleId)}/tables`,
-    );
-  }
-
-  /** `GET /api/vehicles/:id/logs`: the vehicle's logs, newest first. */
-  logs(vehicleId: string): Observable<ListResponse<LogResource>> {
-    return this.http.get<ListResponse<LogResource>>(
-      `/api/vehicles/${encodeURIComponent(vehicleId)}/logs`,
-    );
-  }
-
-  /** `GET /api/tables/:id/revisions`: a table's revisions without values, by number ascending. */
-  tableRevisions(tableId: string): Observable<ListResponse<RevisionSummary>> {
-    return this.http.get<ListResponse<RevisionSummary>>(
-      `/api/tables/${encodeURIComponent(tableId)}/revisions`,
-    );
   }
 }

@@ -21,7 +21,7 @@ import type { ColumnMappingInput, LogKind, LogResource } from '@shared/contracts
 import type { Vehicle } from '@shared/contracts/vehicles';
 import { forkJoin, map, of, switchMap, takeWhile, timer, type Observable } from 'rxjs';
 import { LogsApi } from '../../core/api/logs-api';
-import { VehiclesApi } from '../../core/api/vehicles-api';
+import { TablesApi } from '../../core/api/tables-api';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { checkMapping, type MappingCheck } from './mapping-check';
 import { MappingDialog, type MappingDialogData } from './mapping-dialog';
@@ -68,7 +68,7 @@ const BUSY: ReadonlySet<UploadPhase> = new Set(['checking', 'mapping', 'sending'
 })
 export class LogUpload {
   private readonly api = inject(LogsApi);
-  private readonly vehiclesApi = inject(VehiclesApi);
+  private readonly tablesApi = inject(TablesApi);
   private readonly dialog = inject(MatDialog);
   private readonly destroyRef = inject(DestroyRef);
   private readonly preferences = inject(DisplayPreferences);
@@ -268,14 +268,14 @@ export class LogUpload {
 
   /** A vehicle's tables with their revisions, as select groups. */
   private revisionGroupsOf(vehicleId: string): Observable<RevisionGroup[]> {
-    return this.vehiclesApi.tables(vehicleId).pipe(
+    return this.tablesApi.listForVehicle(vehicleId).pipe(
       switchMap(({ items }) =>
         items.length === 0
           ? of([])
           : forkJoin(
               items.map((table) =>
-                this.vehiclesApi
-                  .tableRevisions(table.id)
+                this.tablesApi
+                  .revisions(table.id)
                   .pipe(map((res) => ({ table, revisions: res.items }))),
               ),
             ),

@@ -11,6 +11,8 @@ import type { RevisionSummary } from '@shared/contracts/tables';
 import type { Vehicle } from '@shared/contracts/vehicles';
 import { forkJoin, map, of } from 'rxjs';
 import { apiErrorMessage, isHttpStatus } from '../../core/api/api-error';
+import { LogsApi } from '../../core/api/logs-api';
+import { TablesApi } from '../../core/api/tables-api';
 import { VehiclesApi } from '../../core/api/vehicles-api';
 import { Session } from '../../core/auth/session';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
@@ -44,6 +46,8 @@ import { VehicleTableCards } from './vehicle-table-cards';
 })
 export class VehiclePage {
   private readonly api = inject(VehiclesApi);
+  private readonly tablesApi = inject(TablesApi);
+  private readonly logsApi = inject(LogsApi);
   private readonly session = inject(Session);
   private readonly dialog = inject(MatDialog);
   private readonly displayPreferences = inject(DisplayPreferences);
@@ -60,14 +64,14 @@ export class VehiclePage {
   /** Its VE tables, oldest first. */
   protected readonly tables = rxResource({
     params: () => this.id(),
-    stream: ({ params }) => this.api.tables(params).pipe(map((res) => res.items)),
+    stream: ({ params }) => this.tablesApi.listForVehicle(params).pipe(map((res) => res.items)),
     defaultValue: [],
   });
 
   /** Its logs, newest first. */
   protected readonly logs = rxResource({
     params: () => this.id(),
-    stream: ({ params }) => this.api.logs(params).pipe(map((res) => res.items)),
+    stream: ({ params }) => this.logsApi.listForVehicle(params).pipe(map((res) => res.items)),
     defaultValue: [],
   });
 
@@ -79,8 +83,8 @@ export class VehiclePage {
         ? of({})
         : forkJoin(
             params.map((tableId) =>
-              this.api
-                .tableRevisions(tableId)
+              this.tablesApi
+                .revisions(tableId)
                 .pipe(map((res) => [tableId, res.items] as [string, RevisionSummary[]])),
             ),
           ).pipe(map((pairs) => Object.fromEntries(pairs))),
