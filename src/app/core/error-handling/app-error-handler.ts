@@ -1,7 +1,7 @@
 import { ErrorHandler, Injectable, inject } from '@angular/core';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { apiErrorMessage } from '../api/api-error';
 import { HttpErrorResponse } from '@angular/common/http';
+import { Notifier } from '../notify/notifier';
 
 /** Messages browsers use when a lazily loaded chunk cannot be fetched (e.g. after a deploy). */
 const CHUNK_FAILURE_PATTERNS = [
@@ -23,14 +23,17 @@ export function isChunkLoadFailure(error: unknown): boolean {
  */
 @Injectable()
 export class AppErrorHandler implements ErrorHandler {
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notifier = inject(Notifier);
 
   /** Logs `error` and shows a short message about it. */
   handleError(error: unknown): void {
     console.error(error);
     if (isChunkLoadFailure(error)) {
-      this.snackBar
-        .open('Part of Cellsmith failed to load; a newer version may be out.', 'Reload')
+      this.notifier
+        .failureWithAction(
+          'Part of Cellsmith failed to load; a newer version may be out.',
+          'Reload',
+        )
         .onAction()
         .subscribe(() => location.reload());
       return;
@@ -39,6 +42,6 @@ export class AppErrorHandler implements ErrorHandler {
       error instanceof HttpErrorResponse
         ? apiErrorMessage(error, 'A request failed.')
         : 'Something went wrong. The details are in the browser console.';
-    this.snackBar.open(message, 'Dismiss', { duration: 8000 });
+    this.notifier.failure(message);
   }
 }

@@ -8,7 +8,6 @@ import {
   untracked,
 } from '@angular/core';
 import { rxResource, takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import type {
   DisplayPreferenceValues,
   UpdateDisplayPreferencesRequest,
@@ -19,6 +18,7 @@ import { PreferencesApi } from '../api/preferences-api';
 import { Session } from '../auth/session';
 import { ThemePreference } from '../theme/theme-preference';
 import { DEFAULT_PREFERENCES, PREFERENCE_NAMES } from './preference-options';
+import { Notifier } from '../notify/notifier';
 
 /** One preference name. */
 type PreferenceKey = keyof DisplayPreferenceValues;
@@ -59,7 +59,7 @@ export class DisplayPreferences {
   private readonly api = inject(PreferencesApi);
   private readonly session = inject(Session);
   private readonly themePreference = inject(ThemePreference);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notifier = inject(Notifier);
   private readonly errorHandler = inject(ErrorHandler);
 
   private readonly userId = computed(() => this.session.user()?.id);
@@ -187,9 +187,7 @@ export class DisplayPreferences {
         .map((key) => PREFERENCE_NAMES[key])
         .join(', ');
       const reason = apiErrorMessage(error, 'The request failed.');
-      this.snackBar.open(`Your ${names} could not be saved: ${reason}`, 'Dismiss', {
-        duration: 8000,
-      });
+      this.notifier.failure(`Your ${names} could not be saved: ${reason}`);
     }
   }
 }

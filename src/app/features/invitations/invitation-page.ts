@@ -15,7 +15,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, RouterLink } from '@angular/router';
 import { MIN_PASSWORD_LENGTH } from '@shared/contracts/constants';
 import type { InvitationPreview } from '@shared/contracts/team';
@@ -23,6 +22,7 @@ import { apiErrorMessage } from '../../core/api/api-error';
 import { InvitationsApi } from '../../core/api/invitations-api';
 import { ROLE_LABELS } from '../../core/layout/role-labels';
 import { PASSWORD_MISMATCH, RepeatPasswordErrorMatcher, passwordsMatch } from './password-match';
+import { Notifier } from '../../core/notify/notifier';
 
 /** Sentence shown when the token is unknown, used, revoked or expired. */
 const INVALID_INVITATION = 'This invitation is no longer valid';
@@ -52,7 +52,7 @@ interface AcceptForm {
 export class InvitationPage implements OnInit {
   private readonly api = inject(InvitationsApi);
   private readonly router = inject(Router);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notifier = inject(Notifier);
   private readonly destroyRef = inject(DestroyRef);
 
   /** The `:token` route parameter. */
@@ -125,9 +125,7 @@ export class InvitationPage implements OnInit {
       .subscribe({
         next: () => {
           this.isSubmitting.set(false);
-          this.snackBar.open('Invitation accepted — sign in with your new password', 'OK', {
-            duration: 8000,
-          });
+          this.notifier.news('Invitation accepted — sign in with your new password');
           void this.router.navigate(['/sign-in'], { queryParams: { email: preview.email } });
         },
         error: (error: unknown) => {

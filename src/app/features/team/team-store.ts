@@ -1,12 +1,11 @@
 import { DestroyRef, Injectable, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import type { Role } from '@shared/contracts/roles';
 import type { CapturedMail, Invitation, Member, UpdateMemberRequest } from '@shared/contracts/team';
 import type { Observable } from 'rxjs';
-import { apiErrorMessage } from '../../core/api/api-error';
 import { MetaApi } from '../../core/api/meta-api';
 import { TeamApi } from '../../core/api/team-api';
+import { Notifier } from '../../core/notify/notifier';
 
 /**
  * State of the team page: members, invitations and, on a development server, captured mail.
@@ -17,7 +16,7 @@ import { TeamApi } from '../../core/api/team-api';
 export class TeamStore {
   private readonly api = inject(TeamApi);
   private readonly metaApi = inject(MetaApi);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notifier = inject(Notifier);
   private readonly destroyRef = inject(DestroyRef);
 
   private readonly memberList = signal<Member[]>([]);
@@ -50,7 +49,7 @@ export class TeamStore {
   /** Gives `member` exactly `roles`; an empty choice is refused here, before the server. */
   updateRoles(member: Member, roles: Role[]): void {
     if (roles.length === 0) {
-      this.snackBar.open('A member needs at least one role.', 'OK', { duration: 5000 });
+      this.notifier.news('A member needs at least one role.');
       this.restore(member);
       return;
     }
@@ -65,14 +64,14 @@ export class TeamStore {
   /** Revokes a pending invitation, then reloads the list. */
   revoke(invitation: Invitation): void {
     this.run(this.api.revokeInvitation(invitation.id), 'Revoking failed.', () => {
-      this.snackBar.open(`Invitation for ${invitation.email} revoked.`, 'OK', { duration: 5000 });
+      this.notifier.news(`Invitation for ${invitation.email} revoked.`);
       this.loadInvitations();
     });
   }
 
   /** Called after the invite dialog created an invitation. */
   invitationCreated(invitation: Invitation): void {
-    this.snackBar.open(`Invitation sent to ${invitation.email}.`, 'OK', { duration: 5000 });
+    this.notifier.news(`Invitation sent to ${invitation.email}.`);
     this.loadInvitations();
     if (this.isMailCaptured()) this.loadMail();
   }
@@ -133,7 +132,7 @@ export class TeamStore {
     request.pipe(takeUntilDestroyed(this.destroyRef)).subscribe({
       next: onSuccess,
       error: (error: unknown) => {
-        this.snackBar.open(apiErrorMessage(error, fallback), 'Dismiss', { duration: 8000 });
+        this.notifier.requestFailed(error, fallback);
         onFailure?.();
       },
     });
