@@ -66,6 +66,22 @@ export interface ApplyValue {
   message: string;
 }
 
+/**
+ * Whether two apply options give the same preview: everything but the message (typing the
+ * revision's message must not start a new preview).
+ */
+export function sameApplyOptions(a: ApplyValue, b: ApplyValue): boolean {
+  return (
+    a.scope === b.scope &&
+    a.stepFraction === b.stepFraction &&
+    a.smooth === b.smooth &&
+    a.fill === b.fill &&
+    a.guard === b.guard &&
+    a.limitReach === b.limitReach &&
+    a.maxReach === b.maxReach
+  );
+}
+
 /** The apply options a new analysis starts with: its own step fraction, the core's others. */
 export function defaultApplyValue(settings: AnalysisSettingsBody = {}): ApplyValue {
   return {

@@ -10,13 +10,11 @@ import { MatRadioButtonHarness, MatRadioGroupHarness } from '@angular/material/r
 import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 import { MatSliderHarness } from '@angular/material/slider/testing';
 import { provideRouter } from '@angular/router';
-import type { AnalysisCell } from '@shared/contracts/analyses';
 import type { LogResource } from '@shared/contracts/logs';
 import { fillField, noAnimations } from '../../../testing/harness-helpers';
-import { ASSUMED_GUARD } from '../../../testing/table-fixtures';
-import type { AnalysisResource } from '../../core/api/analyses-api';
+import { ASSUMED_GUARD, SMALL_TABLE, leanRichAnalysis } from '../../../testing/table-fixtures';
 import { AnalysisPanel, type AnalyseRequest, type ApplyRequest } from './analysis-panel';
-import { PREVIEW_DEBOUNCE_MS } from './proposal-preview';
+import type { ApplyValue } from './analysis-apply-model';
 import { type PreviewResult, computeProposalPreview } from './proposal-preview-compute';
 
 const LOGS = [
@@ -24,70 +22,28 @@ const LOGS = [
   { id: 'log-2', fileName: 'drive.csv', kind: 'road', durationS: 900, sampleCount: 18000 },
 ] as LogResource[];
 
-const RPM = [1000, 2000, 3000, 4000];
-const MAP = [40, 70, 100];
-const BASE = [
-  [40, 45, 50, 48],
-  [60, 70, 75, 72],
-  [80, 90, 95, 92],
-];
+const { rpmAxis: RPM, mapAxisKpa: MAP, values: BASE } = SMALL_TABLE;
 
-/** A cell measured `ratio` with `weight`; no data with weight 0. */
-function cell(ratio: number, weight: number): AnalysisCell {
-  const hasData = weight > 0;
-  return {
-    samples: hasData ? 40 : 0,
-    weight,
-    ratio: hasData ? ratio : null,
-    spread: hasData ? 0.01 : null,
-    effectiveCount: hasData ? 30 : 0,
-    lambdaErrorPct: hasData ? (ratio - 1) * 100 : null,
-    worstLeanPct: null,
-    lambdaMeasured: hasData ? ratio : null,
-    lambdaCommanded: hasData ? 1 : null,
-    proposal: null,
-    changePct: null,
-    status: hasData ? 'trusted' : 'no_data',
-  };
+/** What the store would compute for the fixture's analysis with the guard on or off. */
+function previewOf(guard: boolean): PreviewResult {
+  return computeProposalPreview({
+    rpmAxis: RPM,
+    mapAxisKpa: MAP,
+    baseValues: BASE,
+    cells: leanRichAnalysis().cells,
+    settings: {
+      minWeight: 10,
+      maxStepPercent: 6,
+      guard: { loadLineKpa: 91.19, leanAllowancePercent: 1 },
+    },
+    apply: { stepFraction: 0.5, smooth: 0.3, fill: true, guard },
+  });
 }
 
-/**
- * An analysis of the 3×4 table: lean (1.08) on the left, rich (0.95) on the right, a hole at
- * 100 kPa × 4000 rpm. The hole sits above the guard's 91.19 kPa line and its neighbours would
- * fill it leaner, so the guard holds it.
- */
-function analysis(): AnalysisResource {
-  const cells = BASE.map((row, r) =>
-    row.map((_, c) => (r === 2 && c === 3 ? cell(1, 0) : cell(c < 2 ? 1.08 : 0.95, 20))),
-  );
-  const resource: AnalysisResource & { settings: object } = {
-    id: 'an-1',
-    tableId: 't-1',
-    baseRevisionId: 'rev-1',
-    logIds: ['log-1'],
-    cells,
-    proposal: BASE.map((row) => [...row]),
-    filterReport: { logs: [], samplesUsed: 5000, cellsTrusted: 11 },
-    leanFlags: [],
-    guard: ASSUMED_GUARD,
-    createdAt: '2026-03-01T10:00:00.000Z',
-    settings: { minWeight: 10, maxStepPercent: 6 },
-  };
-  return resource;
-}
-
-/** Lets the preview's debounce (0 ms here) and the effects run. */
+/** Lets the effects run. */
 async function settle(fixture: ComponentFixture<AnalysisPanel>): Promise<void> {
   await new Promise((resolve) => setTimeout(resolve, 5));
   await fixture.whenStable();
-}
-
-/** Settles until `isDone` holds (the preview travels timer → promise → effect), or gives up. */
-async function settleUntil(
-  fixture: ComponentFixture<AnalysisPanel>,
-  isDone: () => boolean,
-): Promise<void> {
-  for (let round = 0; round < 40 && !isDone(); round++) await settle(fixture);
 }
 
 describe('AnalysisPanel', () => {
@@ -96,20 +52,18 @@ describe('AnalysisPanel', () => {
   let loader: HarnessLoader;
   let analysed: AnalyseRequest[];
   let applied: ApplyRequest[];
-  let previews: (PreviewResult | null)[];
+  let sentOptions: (ApplyValue | null)[];
 
   beforeEach(async () => {
-    TestBed.configureTestingModule({
-      providers: [noAnimations, provideRouter([]), { provide: PREVIEW_DEBOUNCE_MS, useValue: 0 }],
-    });
+    TestBed.configureTestingModule({ providers: [noAnimations, provideRouter([])] });
     fixture = TestBed.createComponent(AnalysisPanel);
     loader = TestbedHarnessEnvironment.loader(fixture);
     analysed = [];
     applied = [];
-    previews = [];
+    sentOptions = [];
     fixture.componentInstance.analyse.subscribe((request) => analysed.push(request));
     fixture.componentInstance.apply.subscribe((request) => applied.push(request));
-    fixture.componentInstance.preview.subscribe((values) => previews.push(values));
+    fixture.componentInstance.applyOptions.subscribe((options) => sentOptions.push(options));
     fixture.componentRef.setInput('logs', LOGS);
     fixture.componentRef.setInput('baseNumber', 4);
     fixture.componentRef.setInput('rpmAxis', RPM);
@@ -124,7 +78,7 @@ describe('AnalysisPanel', () => {
     selected: [number, number][] = [],
     locked: [number, number][] = [],
   ): Promise<void> {
-    fixture.componentRef.setInput('analysis', analysis());
+    fixture.componentRef.setInput('analysis', leanRichAnalysis());
     fixture.componentRef.setInput('selectedCells', selected);
     fixture.componentRef.setInput('lockedCells', locked);
     await settle(fixture);
@@ -241,39 +195,88 @@ describe('AnalysisPanel', () => {
     );
   });
 
-  it('When the step fraction changes, then a new preview equal to the server’s is emitted', async () => {
-    expect(previews.at(-1)).toBeNull();
+  it('When the step fraction changes, then the new options are sent for the preview, and the message sends none', async () => {
     await showAnalysis([], [[0, 0]]);
-    const resource = analysis();
-    const expected = (stepFraction: number) =>
-      computeProposalPreview({
-        rpmAxis: RPM,
-        mapAxisKpa: MAP,
-        baseValues: BASE,
-        cells: resource.cells,
-        // The analysis's own trust and step limits and its guard, as the server's apply reads them.
-        settings: {
-          minWeight: 10,
-          maxStepPercent: 6,
-          guard: { loadLineKpa: 91.19, leanAllowancePercent: 1 },
-        },
-        apply: { stepFraction, smooth: 0.3, fill: true, lockedCells: [[0, 0]], guard: true },
-      });
-    await settleUntil(fixture, () => !!previews.at(-1));
-    const first = previews.at(-1);
-    expect(first).toEqual(expected(0.5));
+    // A new analysis starts the options afresh, at its own step fraction (the fixture's none: 0.5).
+    expect(sentOptions.at(-1)).toMatchObject({ scope: 'all', stepFraction: 0.5, guard: true });
 
     const slider = await loader.getHarness(MatSliderHarness);
     await (await slider.getEndThumb()).setValue(0.9);
-    await settleUntil(fixture, () => previews.at(-1) !== first);
+    await settle(fixture);
+    expect(sentOptions.at(-1)).toMatchObject({ stepFraction: 0.9, smooth: 0.3, fill: true });
 
-    const second = previews.at(-1);
-    expect(second).toEqual(expected(0.9));
-    expect(second).not.toEqual(first);
-    // The locked cell keeps its value in every preview.
-    expect(second?.values[0]?.[0]).toBe(40);
-    expect(second?.origin[0]?.[0]).toBe('locked');
-    expect((fixture.nativeElement as HTMLElement).textContent).toMatch(/\d+ cells change: mean/);
+    const sent = sentOptions.length;
+    await fillField(loader, 'Message of the draft', 'third pull');
+    await settle(fixture);
+    expect(sentOptions).toHaveLength(sent);
+  });
+
+  it('When an option is out of range, then no options are sent, so there is no preview', async () => {
+    await showAnalysis();
+    await (
+      await loader.getHarness(
+        MatSlideToggleHarness.with({ label: 'Limit how far the fill reaches' }),
+      )
+    ).check();
+    await fillField(loader, 'Fill reach', '101');
+    await settle(fixture);
+    expect(sentOptions.at(-1)).toBeNull();
+  });
+
+  it('When the preview comes, then its changes and the cell held under load are told', async () => {
+    await showAnalysis();
+    const preview = previewOf(true);
+    // The fixture's hole under load is held at its base value.
+    expect([preview.heldCount, preview.origin[2]?.[3], preview.values[2]?.[3]]).toEqual([
+      1,
+      'held',
+      92,
+    ]);
+    fixture.componentRef.setInput('preview', preview);
+    await settle(fixture);
+    expect(host().querySelector('[data-testid="preview-held"]')?.textContent).toContain(
+      '1 cell held under load: needs data.',
+    );
+    expect(host().textContent).toContain('Cells: 11 measured, 0 filled from neighbours, 1 held');
+    expect(host().textContent).toMatch(/\d+ cells change: mean/);
+
+    fixture.componentRef.setInput('isPreviewing', true);
+    await settle(fixture);
+    expect(host().textContent).toContain('(updating…)');
+  });
+
+  it('When the guard is turned off, then a caution shows, the options and the body say so', async () => {
+    await showAnalysis();
+    expect(host().querySelector('[role="alert"]')).toBeNull();
+
+    const guard = await loader.getHarness(
+      MatCheckboxHarness.with({ label: 'Fuel-safety guard under load' }),
+    );
+    expect(await guard.isChecked()).toBe(true);
+    await guard.uncheck();
+    await settle(fixture);
+
+    expect(host().querySelector('[role="alert"]')?.textContent).toContain(
+      'Guard off: the fill and the smoothing may lean cells under load that no log measured',
+    );
+    expect(sentOptions.at(-1)?.guard).toBe(false);
+    fixture.componentRef.setInput('preview', previewOf(false));
+    await settle(fixture);
+    expect(host().querySelector('[data-testid="preview-held"]')?.textContent).toContain(
+      'Fuel-safety guard off: no cell is held under load.',
+    );
+
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Apply as draft' }))).click();
+    expect(applied.at(-1)?.body.guard).toBe(false);
+  });
+
+  it('When the preview cannot be computed, then the core’s sentence is shown', async () => {
+    await showAnalysis();
+    fixture.componentRef.setInput('previewError', 'the base table has 2 rows, the evidence 3');
+    await settle(fixture);
+    expect(host().querySelector('.preview')?.textContent).toContain(
+      'The preview could not be computed: the base table has 2 rows, the evidence 3',
+    );
   });
 
   it('When the analysis is shown, then the guard’s figures and the assumed pressure are told', async () => {
@@ -290,7 +293,7 @@ describe('AnalysisPanel', () => {
 
     fixture.componentRef.setInput('units', 'imperial');
     fixture.componentRef.setInput('analysis', {
-      ...analysis(),
+      ...leanRichAnalysis(),
       guard: { ...ASSUMED_GUARD, loadLineKpa: 76.5, baroKpa: 85, baroSource: 'logged' },
     });
     await settle(fixture);
@@ -299,49 +302,6 @@ describe('AnalysisPanel', () => {
       'Load line 11.1 psi(a) (90 % of 12.33 psi(a) barometric pressure, read from the logs’ barometer); lean allowance 1 %.',
     );
     expect(host().querySelector('[data-testid="guard-assumed"]')).toBeNull();
-  });
-
-  it('When the preview holds a cell under load, then the summary counts it', async () => {
-    await showAnalysis();
-    await settleUntil(fixture, () => !!previews.at(-1));
-    const preview = previews.at(-1);
-    expect(preview?.heldCount).toBe(1);
-    expect(preview?.origin[2]?.[3]).toBe('held');
-    // Held: the base value stays.
-    expect(preview?.values[2]?.[3]).toBe(92);
-    expect(host().querySelector('[data-testid="preview-held"]')?.textContent).toContain(
-      '1 cell held under load: needs data.',
-    );
-    expect(host().textContent).toContain('Cells: 11 measured, 0 filled from neighbours, 1 held');
-  });
-
-  it('When the guard is turned off, then a caution shows, the preview leans and the body says so', async () => {
-    await showAnalysis();
-    await settleUntil(fixture, () => !!previews.at(-1));
-    const guarded = previews.at(-1);
-    expect(host().querySelector('[role="alert"]')).toBeNull();
-
-    const guard = await loader.getHarness(
-      MatCheckboxHarness.with({ label: 'Fuel-safety guard under load' }),
-    );
-    expect(await guard.isChecked()).toBe(true);
-    await guard.uncheck();
-    await settleUntil(fixture, () => previews.at(-1) !== guarded);
-
-    expect(host().querySelector('[role="alert"]')?.textContent).toContain(
-      'Guard off: the fill and the smoothing may lean cells under load that no log measured',
-    );
-    const unguarded = previews.at(-1);
-    expect(unguarded?.guard).toBeNull();
-    expect(unguarded?.heldCount).toBe(0);
-    // The hole under load is now filled leaner than its base.
-    expect(unguarded?.values[2]?.[3]).toBeLessThan(92);
-    expect(host().querySelector('[data-testid="preview-held"]')?.textContent).toContain(
-      'Fuel-safety guard off: no cell is held under load.',
-    );
-
-    await (await loader.getHarness(MatButtonHarness.with({ text: 'Apply as draft' }))).click();
-    expect(applied.at(-1)?.body.guard).toBe(false);
   });
 
   it('When flags are loud or only watched, then the summary counts them apart and explains the words', async () => {
@@ -356,7 +316,7 @@ describe('AnalysisPanel', () => {
       severity: 'warn' as const,
     };
     fixture.componentRef.setInput('analysis', {
-      ...analysis(),
+      ...leanRichAnalysis(),
       leanFlags: [flag, { ...flag, col: 1, weight: 0.3, severity: 'watch' as const }],
     });
     await settle(fixture);

@@ -3,7 +3,6 @@ import {
   Component,
   computed,
   effect,
-  inject,
   input,
   output,
   signal,
@@ -30,7 +29,7 @@ import { formatQuantity } from '../../shared/units/format-quantity';
 import {
   type ApplyValue,
   defaultApplyValue,
-  previewSettingsOf,
+  sameApplyOptions,
   settingsOfAnalysis,
   toApplyBody,
 } from './analysis-apply-model';
@@ -54,12 +53,10 @@ import {
 } from './analysis-text';
 import {
   type CellRef,
-  type PreviewInput,
   type PreviewResult,
   countOrigins,
   summarisePreview,
 } from './proposal-preview-compute';
-import { ProposalPreview } from './proposal-preview';
 import type { TableBusy } from './table-store';
 
 import type { AnalyseRequest, ApplyRequest } from './analysis-requests';
@@ -70,6 +67,8 @@ export type { AnalyseRequest, ApplyRequest };
  * The analysis panel: pick parsed logs of the vehicle and the settings, run an analysis against
  * the revision shown, read each log's filter funnel and delay, and apply the proposal as a
  * draft revision to all cells or only the selected ones, with a live preview of the result.
+ * It only shows and asks: the workspace's `AnalysisStore` runs, applies and computes the
+ * preview from the options this panel sends.
  */
 @Component({
   selector: 'app-analysis-panel',
@@ -87,13 +86,10 @@ export type { AnalyseRequest, ApplyRequest };
     ReactiveFormsModule,
     RouterLink,
   ],
-  providers: [ProposalPreview],
   templateUrl: './analysis-panel.html',
   styleUrl: './analysis-panel.scss',
 })
 export class AnalysisPanel {
-  private readonly previewer = inject(ProposalPreview);
-
   /** Parsed logs of the vehicle, newest first. */
   readonly logs = input.required<readonly LogResource[]>();
   /** The latest analysis, if any. */
@@ -106,7 +102,7 @@ export class AnalysisPanel {
   readonly runNumber = input<number | null>(null);
   /** Whether the grid has unsaved edits (an analysis runs on the saved revision). */
   readonly isDirty = input(false);
-  /** VE of the analysed base revision `[row][col]`, for the preview. */
+  /** VE of the analysed base revision `[row][col]`, for the preview's summary. */
   readonly baseValues = input<readonly (readonly number[])[]>([]);
   /** Cells selected in the grid as `[row, col]`. */
   readonly selectedCells = input<readonly CellRef[]>([]);
@@ -122,16 +118,25 @@ export class AnalysisPanel {
   readonly units = input<UnitSystem>('metric');
   /** The table's vehicle, whose page holds the guard's settings; null hides the link. */
   readonly vehicleId = input<string | null>(null);
+  /**
+   * What the draft would hold with the options sent: VE `[row][col]` rounded as stored, each
+   * cell's origin and the held count; null while there is none.
+   */
+  readonly preview = input<PreviewResult | null>(null);
+  /** Why the preview could not be computed, or null. */
+  readonly previewError = input<string | null>(null);
+  /** Whether a preview is on its way. */
+  readonly isPreviewing = input(false);
 
   /** Run an analysis of these logs with these settings. */
   readonly analyse = output<AnalyseRequest>();
   /** Apply the analysis as a draft. */
   readonly apply = output<ApplyRequest>();
   /**
-   * What the draft would hold: VE `[row][col]` rounded as stored, each cell's origin and the
-   * held count; null with no analysis.
+   * The apply options the preview depends on (not the message), whenever they change; null
+   * while one is out of range.
    */
-  readonly preview = output<PreviewResult | null>();
+  readonly applyOptions = output<ApplyValue | null>();
 
   private readonly settingsForm = viewChild(AnalysisSettingsForm);
   private readonly chosenIds = signal<ReadonlySet<string>>(new Set());
@@ -182,76 +187,28 @@ export class AnalysisPanel {
   );
   /** The locked cells in words. */
   protected readonly lockedText = computed(() => lockedLine(this.lockedCells().length));
-  /** The preview's evidence, taken once per analysis (what the worker needs, no more). */
-  private readonly evidence = computed(() =>
-    this.analysis()?.cells.map((row) =>
-      row.map(({ weight, ratio, spread }) => ({ weight, ratio, spread })),
-    ),
-  );
-  /** The apply options the preview depends on (typing the message does not start one). */
+  /** The apply options the preview depends on; null while one is out of range. */
   private readonly previewOptions = computed(
-    (): ApplyValue => ({ ...this.applyValue(), message: '' }),
-    {
-      equal: (a, b) =>
-        a.scope === b.scope &&
-        a.stepFraction === b.stepFraction &&
-        a.smooth === b.smooth &&
-        a.fill === b.fill &&
-        a.guard === b.guard &&
-        a.limitReach === b.limitReach &&
-        a.maxReach === b.maxReach,
-    },
+    (): ApplyValue | null =>
+      this.applyStatus() === 'VALID' ? { ...this.applyValue(), message: '' } : null,
+    { equal: (a, b) => (a && b ? sameApplyOptions(a, b) : a === b) },
   );
-  /** What the preview is computed from; null with no analysis or options out of range. */
-  private readonly previewInput = computed<PreviewInput | null>(() => {
-    const analysis = this.analysis();
-    const cells = this.evidence();
-    const baseValues = this.baseValues();
-    if (!analysis || !cells || baseValues.length === 0 || this.applyStatus() !== 'VALID') {
-      return null;
-    }
-    const value = this.previewOptions();
-    // The selection only matters for "only the selected cells": selecting in the grid while
-    // applying to all cells must not start a new preview.
-    const selected = value.scope === 'selected' ? this.selectedCells() : [];
-    const body = toApplyBody(value, selected, this.lockedCells());
-    return {
-      rpmAxis: this.rpmAxis(),
-      mapAxisKpa: this.mapAxisKpa(),
-      baseValues,
-      cells,
-      settings: previewSettingsOf(analysis),
-      apply: {
-        stepFraction: body.stepFraction,
-        smooth: body.smooth,
-        fill: body.fill,
-        maxReach: body.maxReach,
-        lockedCells: body.lockedCells,
-        onlyCells: body.onlyCells,
-        guard: body.guard,
-      },
-    };
-  });
-  /** Whether a preview is on its way. */
-  protected readonly isPreviewing = this.previewer.isComputing;
-  /** Why the preview could not be computed, or null. */
-  protected readonly previewError = this.previewer.error;
   /** The preview's changes in words, null while there is none. */
   protected readonly previewText = computed(() => {
-    const values = this.previewer.values();
+    const values = this.preview()?.values;
     if (!values) return null;
     const summary = summarisePreview(this.baseValues(), values);
     return previewSummaryLine(summary, this.rpmAxis(), this.mapAxisKpa());
   });
   /** The preview's held cells in words, and whether there are any; null while there is none. */
   protected readonly previewHeld = computed(() => {
-    const result = this.previewer.result();
+    const result = this.preview();
     if (!result) return null;
     return { text: heldLine(result.heldCount, result.guard !== null), count: result.heldCount };
   });
   /** How the preview's cells got their values, in one line; null while there is none. */
   protected readonly previewOrigins = computed(() => {
-    const result = this.previewer.result();
+    const result = this.preview();
     return result ? originLine(countOrigins(result.origin)) : null;
   });
   /** The analysis's lean flags counted (loud ones, then the ones to watch). */
@@ -297,15 +254,10 @@ export class AnalysisPanel {
       const settings = this.analysisSettings();
       untracked(() => this.applyForm.reset(defaultApplyValue(settings ?? {})));
     });
-    // Sync outward: every change of the options, selection or locks asks for a new preview...
+    // Sync outward: every change of the options the preview depends on goes to the workspace.
     effect(() => {
-      const previewInput = this.previewInput();
-      untracked(() => this.previewer.request(previewInput));
-    });
-    // ...and every preview that arrives is handed to the workspace.
-    effect(() => {
-      const result = this.previewer.result();
-      untracked(() => this.preview.emit(result));
+      const options = this.previewOptions();
+      untracked(() => this.applyOptions.emit(options));
     });
   }
 

@@ -1,6 +1,6 @@
 import type { AnalysisSettingsBody, ApplyAnalysisRequest } from '@shared/contracts/analyses';
 
-// What the analysis panel asks the table store for: their own module, so the panel and the
+// What the analysis panel asks the analysis store for: their own module, so the panel and the
 // store each depend on it and never on each other both ways.
 
 /** What "Run analysis" asks for. */

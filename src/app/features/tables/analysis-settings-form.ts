@@ -17,22 +17,34 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import type { AnalysisSettingsBody } from '@shared/contracts/analyses';
+import type { UnitSystem } from '@shared/contracts/preferences';
 import { CHANNELS } from '@shared/core/channels';
 import { map } from 'rxjs';
 import {
   type AnalysisSettingKey,
   EXPRESSION_MAX_LENGTH,
-  SETTING_RANGES,
   type SettingRange,
   lambdaOrderProblem,
 } from './analysis-setting-ranges';
-import { createSettingsForm, settingsNumberControls } from './analysis-settings-controls';
+import {
+  createSettingsForm,
+  rangeValidator,
+  settingsNumberControls,
+} from './analysis-settings-controls';
 import {
   type FilterRulesValue,
+  type SettingsValue,
   defaultSettingsValue,
   fromSettingsBody,
   toSettingsBody,
 } from './analysis-settings-model';
+import {
+  MEASURED_SETTING_KEYS,
+  type ShownOrigins,
+  settingsInMetric,
+  settingsShown,
+  shownSettingRange,
+} from './analysis-settings-units';
 
 /** One rule of the form as the template lists it. */
 interface RuleView {
@@ -105,8 +117,9 @@ export function isExpressionError(message: string): boolean {
 /**
  * The settings of the next analysis: filter rules with their limits and an optional
  * expression, the wideband delay, the step and trust limits and the lean-under-load limits,
- * grouped in expansion panels. `body()` is the settings for the API, null while a field is
- * out of range.
+ * grouped in expansion panels. Pressures (and the coolant temperature) are typed in the user's
+ * units and sent metric; a field left as the form filled it sends its metric value unchanged.
+ * `body()` is the settings for the API, null while a field is out of range.
  */
 @Component({
   selector: 'app-analysis-settings-form',
@@ -129,6 +142,8 @@ export class AnalysisSettingsForm {
   readonly serverError = input<string | null>(null);
   /** Settings of the analysis shown, offered as a starting point. */
   readonly seed = input<AnalysisSettingsBody | null>(null);
+  /** The user's unit system: the measured fields are typed in it. */
+  readonly units = input<UnitSystem>('metric');
 
   /** The form. */
   protected readonly form = createSettingsForm();
@@ -152,13 +167,21 @@ export class AnalysisSettingsForm {
   protected readonly isFiltersOpen = signal(false);
 
   private readonly fields = settingsNumberControls(this.form);
+  /** The units the form's measured fields hold now (they follow `units`). */
+  private readonly shownUnits = signal<UnitSystem>('metric');
+  /** What the form put into each measured field, so an untouched one is sent exactly. */
+  private origins: ShownOrigins = {};
   private readonly raw = toSignal(this.form.valueChanges.pipe(map(() => this.form.getRawValue())), {
     initialValue: this.form.getRawValue(),
   });
   private readonly status = toSignal(this.form.statusChanges, { initialValue: this.form.status });
 
   /** The settings for `POST /api/tables/:id/analyses`, null while a field is refused. */
-  readonly body = computed(() => (this.status() === 'VALID' ? toSettingsBody(this.raw()) : null));
+  readonly body = computed(() =>
+    this.status() === 'VALID'
+      ? toSettingsBody(settingsInMetric(this.raw(), this.shownUnits(), this.origins))
+      : null,
+  );
   /** Whether every field is within its range. */
   readonly isValid = computed(() => this.status() === 'VALID');
 
@@ -181,7 +204,8 @@ export class AnalysisSettingsForm {
   /** The lean-under-load limits in words. */
   protected readonly leanSummary = computed(() => {
     const v = this.raw();
-    return `from ${v.leanLoadKpa ?? '–'} kPa, warn at ${v.warnLeanPercent ?? '–'} %`;
+    const unit = shownSettingRange('leanLoadKpa', this.shownUnits()).unit;
+    return `from ${v.leanLoadKpa ?? '–'} ${unit}, warn at ${v.warnLeanPercent ?? '–'} %`;
   });
   /** Why the lambda range is refused as a whole (max not above min), or null. */
   protected readonly lambdaRangeProblem = computed(() => {
@@ -195,6 +219,11 @@ export class AnalysisSettingsForm {
   });
 
   constructor() {
+    // The measured fields follow the user's units: what they hold is said again in the new ones.
+    effect(() => {
+      const units = this.units();
+      untracked(() => this.showIn(units));
+    });
     // Sync outward into the form: a refused expression is marked at its field and its panel
     // opens; typing in the field re-runs the validators and clears the mark.
     effect(() => {
@@ -214,9 +243,9 @@ export class AnalysisSettingsForm {
     return this.fields[key];
   }
 
-  /** The range of a number field. */
+  /** The range of a number field, in the units it is typed in. */
   protected range(key: AnalysisSettingKey): SettingRange {
-    return SETTING_RANGES[key];
+    return shownSettingRange(key, this.shownUnits());
   }
 
   /** The group of a rule. */
@@ -227,11 +256,30 @@ export class AnalysisSettingsForm {
   /** Puts the settings of the analysis shown into the form. */
   protected useSeed(): void {
     const seed = this.seed();
-    if (seed) this.form.setValue(fromSettingsBody(seed));
+    if (seed) this.fill(fromSettingsBody(seed));
   }
 
   /** Puts the core's defaults back. */
   protected reset(): void {
-    this.form.setValue(defaultSettingsValue());
+    this.fill(defaultSettingsValue());
+  }
+
+  /** Says the form's values again in `units`, with the measured fields' ranges in them. */
+  private showIn(units: UnitSystem): void {
+    const before = this.shownUnits();
+    if (units === before) return;
+    const metric = settingsInMetric(this.form.getRawValue(), before, this.origins);
+    this.shownUnits.set(units);
+    for (const key of MEASURED_SETTING_KEYS) {
+      this.fields[key].setValidators(rangeValidator(shownSettingRange(key, units)));
+    }
+    this.fill(metric);
+  }
+
+  /** Puts a metric form value into the form, in the units it is typed in. */
+  private fill(metric: SettingsValue): void {
+    const { value, origins } = settingsShown(metric, this.shownUnits());
+    this.origins = origins;
+    this.form.setValue(value);
   }
 }

@@ -1,4 +1,7 @@
+import type { UnitSystem } from '@shared/contracts/preferences';
 import type { ColDef, ValueSetterParams } from 'ag-grid-community';
+import { unitLabel } from '../../shared/units/display-units';
+import { formatQuantity } from '../../shared/units/format-quantity';
 import { type CellBounds, isInBounds, selectionEdges } from './cell-range';
 import type { CellView } from './overlays';
 
@@ -103,6 +106,15 @@ export interface MapAxisDisplay {
 
 /** The MAP axis in kPa, as stored. */
 export const KPA_AXIS: MapAxisDisplay = { unit: 'kPa', label: (kpa) => breakpointLabel(kpa) };
+
+/** The MAP axis in the user's units: kPa as stored, or psi(a) for imperial (values stay kPa). */
+export function mapAxisDisplay(units: UnitSystem): MapAxisDisplay {
+  if (units === 'metric') return KPA_AXIS;
+  return {
+    unit: unitLabel('pressure', units),
+    label: (kpa) => formatQuantity('pressure', kpa, units, { unit: false }),
+  };
+}
 
 /** What the value columns ask of the grid component. */
 export interface ColumnHooks {

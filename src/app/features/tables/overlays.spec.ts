@@ -32,6 +32,7 @@ const ANALYSIS: AnalysisResource = {
   tableId: 't1',
   baseRevisionId: 'r1',
   logIds: ['l1'],
+  settings: {},
   cells: [
     [
       cell({ weight: 12, samples: 30, spread: 0.0213, lambdaErrorPct: 4.24, changePct: 4.2 }),

@@ -30,18 +30,21 @@ async function startPreviewWorker(): Promise<Worker | null> {
 interface PreviewState {
   /** The latest preview (values rounded as the server stores them); null when there is none. */
   readonly result: PreviewResult | null;
+  /** The request `result` answers; null with no result. */
+  readonly resultFor: PreviewInput | null;
   /** Why the latest request could not be computed, or null. */
   readonly error: string | null;
   /** Whether a newer request is waiting or being computed. */
   readonly isComputing: boolean;
 }
 
-const EMPTY: PreviewState = { result: null, error: null, isComputing: false };
+const EMPTY: PreviewState = { result: null, resultFor: null, error: null, isComputing: false };
 
 /**
  * The live preview of applying an analysis: debounced, computed in a Web Worker when the
  * platform has one (else on the spot), and only the answer to the newest request is kept.
- * Provide it in the component that shows the preview; its worker ends with that component.
+ * Provide it next to the store that shows the preview (`AnalysisStore`); its worker ends with the
+ * component that provides them.
  */
 @Injectable()
 export class ProposalPreview {
@@ -59,6 +62,11 @@ export class ProposalPreview {
 
   /** The latest preview: values, each cell's origin and the held count; null when there is none. */
   readonly result = computed(() => this.state().result);
+  /**
+   * The request the latest preview answers (the very object passed to `request`), so an owner can
+   * tell a preview of its current analysis from one of an analysis it showed before.
+   */
+  readonly resultFor = computed(() => this.state().resultFor);
   /** The latest preview values `[row][col]`, null when there is none. */
   readonly values = computed(() => this.state().result?.values ?? null);
   /** Why the latest preview could not be computed, or null. */
@@ -128,12 +136,13 @@ export class ProposalPreview {
     // An answer overtaken by a newer request is stale: the newer one is on its way.
     if (reply.id !== this.latestId || this.isDestroyed) return;
     if ('error' in reply) {
-      this.state.set({ result: null, error: reply.error, isComputing: false });
+      this.state.set({ result: null, resultFor: null, error: reply.error, isComputing: false });
       return;
     }
     const { values, origin, heldCount, guard } = reply;
     this.state.set({
       result: { values, origin, heldCount, guard },
+      resultFor: this.latestInput,
       error: null,
       isComputing: false,
     });

@@ -2,8 +2,6 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import type { ApplyAnalysisRequest } from '@shared/contracts/analyses';
-import type { PreviewResult } from './proposal-preview-compute';
 import { TableStore, locksStorageKey } from './table-store';
 import { answerTableLoad, revisionFixture, tableFixture } from '../../../testing/table-fixtures';
 
@@ -105,9 +103,6 @@ describe('TableStore', () => {
     http.expectOne('/api/tables/t1/revisions').flush({ items: [REVISION], total: 2 });
     http.expectOne('/api/revisions/r2').flush({ ...REVISION, id: 'r2', number: 2 });
     http.expectOne('/api/vehicles/v1/logs').flush({ items: [], total: 0 });
-    http
-      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
-      .flush({ items: [], total: 0 });
     expect(store.revision()?.number).toBe(2);
     expect(store.canUndo()).toBe(false);
   });
@@ -184,92 +179,5 @@ describe('TableStore', () => {
 
     expect(store.setLocked(false)).toBe('Unlocked 4 cells.');
     expect(store.lockedCells()).toEqual([]);
-  });
-
-  it('When an analysis runs, then its settings are sent and the list of analyses is read again', () => {
-    store.analyse({ logIds: ['l1'], settings: { stepFraction: 0.7 } });
-    const post = http.expectOne((r) => r.method === 'POST' && r.url === '/api/tables/t1/analyses');
-    expect(post.request.body).toEqual({
-      baseRevisionId: 'r1',
-      logIds: ['l1'],
-      settings: { stepFraction: 0.7 },
-    });
-    post.flush({ id: 'a1', baseRevisionId: 'r1', leanFlags: [] });
-    http
-      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
-      .flush({ items: [{ id: 'a1' }], total: 1 });
-    expect(store.analysis()?.id).toBe('a1');
-    expect(store.analyses().map((a) => a.id)).toEqual(['a1']);
-    expect(store.analysisBaseValues()).toEqual(REVISION.values);
-  });
-
-  it('When an earlier analysis of an older revision is opened, then that revision is its base', () => {
-    store.openAnalysis('a0');
-    http.expectOne('/api/analyses/a0').flush({ id: 'a0', baseRevisionId: 'r0', leanFlags: [] });
-    http.expectOne('/api/revisions/r0').flush({
-      ...REVISION,
-      id: 'r0',
-      values: [
-        [1, 2],
-        [3, 4],
-      ],
-    });
-    expect(store.analysis()?.id).toBe('a0');
-    expect(store.analysisBaseValues()).toEqual([
-      [1, 2],
-      [3, 4],
-    ]);
-  });
-
-  it('When an analysis is applied, then the panel’s options go to the server as they are', () => {
-    store.analyse({ logIds: ['l1'], settings: {} });
-    http
-      .expectOne((r) => r.method === 'POST' && r.url === '/api/tables/t1/analyses')
-      .flush({ id: 'a1', baseRevisionId: 'r1', leanFlags: [] });
-    http
-      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
-      .flush({ items: [], total: 0 });
-    const body: ApplyAnalysisRequest = {
-      stepFraction: 0.8,
-      smooth: 0,
-      onlyCells: [[1, 1]],
-      lockedCells: [[0, 0]],
-      guard: false,
-    };
-    store.applyAnalysis(body);
-    const apply = http.expectOne('/api/analyses/a1/apply');
-    expect(apply.request.body).toEqual(body);
-  });
-
-  it('When previews arrive, then one is kept only while its analysis is shown', () => {
-    const preview: PreviewResult = {
-      values: REVISION.values,
-      origin: [
-        ['measured', 'unchanged'],
-        ['held', 'unchanged'],
-      ],
-      heldCount: 1,
-      guard: { loadLineKpa: 91.19, leanAllowance: 0.01 },
-    };
-    // No analysis yet: a late preview is dropped.
-    store.showPreview(preview);
-    expect(store.preview()).toBeNull();
-
-    store.analyse({ logIds: ['l1'], settings: {} });
-    http
-      .expectOne((r) => r.method === 'POST' && r.url === '/api/tables/t1/analyses')
-      .flush({ id: 'a1', baseRevisionId: 'r1', leanFlags: [] });
-    http
-      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
-      .flush({ items: [], total: 0 });
-    store.showPreview(preview);
-    expect(store.preview()).toBe(preview);
-
-    // The apply reloads the table: the analysis and its preview go.
-    store.applyAnalysis({});
-    http.expectOne('/api/analyses/a1/apply').flush({ ...REVISION, id: 'r2', number: 2 });
-    answerTableLoad(http, TABLE, REVISION);
-    expect(store.analysis()).toBeNull();
-    expect(store.preview()).toBeNull();
   });
 });

@@ -1,16 +1,15 @@
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import type { LogResource } from '@shared/contracts/logs';
 import type { Revision, RevisionSummary, VeTableResource } from '@shared/contracts/tables';
 import type { Vehicle } from '@shared/contracts/vehicles';
-import { type Observable, forkJoin, map, of, switchMap, throwError } from 'rxjs';
-import type { AnalysisSummary, ApplyAnalysisRequest } from '@shared/contracts/analyses';
-import { AnalysesApi, type AnalysisResource } from '../../core/api/analyses-api';
+import { type Observable, forkJoin, map, switchMap, throwError } from 'rxjs';
+import type { LoadGuard } from '@shared/correct/load-guard';
 import { apiErrorMessage } from '../../core/api/api-error';
 import { LogsApi } from '../../core/api/logs-api';
 import { TablesApi } from '../../core/api/tables-api';
 import { VehiclesApi } from '../../core/api/vehicles-api';
+import { Notifier } from '../../core/notify/notifier';
 import {
   type CellSelection,
   type CellSet,
@@ -34,9 +33,7 @@ import {
   redoEdit,
   undoEdit,
 } from './edit-history';
-import type { AnalyseRequest } from './analysis-requests';
 import { cellName } from './grid-model';
-import { type PreviewResult, loadGuardOf } from './proposal-preview-compute';
 import { pasteText } from './table-clipboard';
 import { readLocks, saveLocks } from './table-locks';
 import { parseVeInput } from './ve-input';
@@ -53,33 +50,29 @@ interface Loaded {
   revisions: RevisionSummary[];
   head: Revision;
   logs: LogResource[];
-  analyses: AnalysisSummary[];
 }
 
 /**
  * State of the table workspace: the table, its revisions, the head revision's values being
- * edited with an undo/redo history, the vehicle's logs and the latest analysis. Provided by the
- * workspace page, so it lives and dies with it. Failures are told by snackbar.
+ * edited with an undo/redo history, the selection, the locks and the vehicle's logs, and what
+ * the workspace waits for. The analysis shown has its own store (`AnalysisStore`), which reads
+ * this one; this one knows nothing of it. Provided by the workspace page, so it lives and dies
+ * with it. News and failures are told through the `Notifier`.
  */
 @Injectable()
 export class TableStore {
   private readonly tablesApi = inject(TablesApi);
-  private readonly analysesApi = inject(AnalysesApi);
   private readonly logsApi = inject(LogsApi);
   private readonly vehiclesApi = inject(VehiclesApi);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notifier = inject(Notifier);
   private readonly destroyRef = inject(DestroyRef);
 
   private readonly loaded = signal<Loaded | null>(null);
   private readonly editedValues = signal<readonly (readonly number[])[]>([]);
   private readonly editHistory = signal<EditHistory>(EMPTY_HISTORY);
-  private readonly latestAnalysis = signal<AnalysisResource | null>(null);
-  private readonly lastAnalyseError = signal<string | null>(null);
-  private readonly openedBaseValues = signal<readonly (readonly number[])[] | null>(null);
   private readonly waitingFor = signal<TableBusy>('loading');
   private readonly currentSelection = signal<CellSelection | null>(null);
   private readonly lockSet = signal<CellSet>(new Set());
-  private readonly latestPreview = signal<PreviewResult | null>(null);
 
   /** The table (axes, name), null until loaded. */
   readonly table = computed(() => this.loaded()?.table ?? null);
@@ -95,25 +88,6 @@ export class TableStore {
   readonly readyLogs = computed(() =>
     (this.loaded()?.logs ?? []).filter((log) => log.status === 'ready'),
   );
-  /** The analysis shown: run in this session, or an earlier one opened again. */
-  readonly analysis = this.latestAnalysis.asReadonly();
-  /**
-   * The VE of the analysis's base revision: the loaded head's edited-from values, or those of the
-   * older revision an earlier analysis was run on (so a preview matches what the server applies).
-   */
-  readonly analysisBaseValues = computed(
-    () => this.openedBaseValues() ?? this.loaded()?.head.values ?? [],
-  );
-  /**
-   * The live preview of applying the analysis shown with the panel's options: what the apply
-   * would write and how each cell got there (measured, filled, held). Null with no analysis, and
-   * until the first preview of a newly shown analysis arrives.
-   */
-  readonly preview = this.latestPreview.asReadonly();
-  /** The table's analyses, newest first (summaries). */
-  readonly analyses = computed(() => this.loaded()?.analyses ?? []);
-  /** The server's refusal of the last analysis run, null when it ran or none was run. */
-  readonly analyseError = this.lastAnalyseError.asReadonly();
   /** What the workspace waits for. */
   readonly busy = this.waitingFor.asReadonly();
   /** Whether there is an edit to undo. */
@@ -146,7 +120,6 @@ export class TableStore {
 
   /** Loads the table, its vehicle, revisions, the head revision's values and the logs. */
   load(tableId: string): void {
-    this.waitingFor.set('loading');
     const request = this.tablesApi.get(tableId).pipe(
       switchMap((table) => {
         if (!table.headRevisionId) return throwError(() => new Error('The table has no revision.'));
@@ -155,11 +128,10 @@ export class TableStore {
           revisions: this.tablesApi.revisions(table.id).pipe(map((list) => list.items)),
           head: this.tablesApi.revision(table.headRevisionId),
           logs: this.logsApi.listForVehicle(table.vehicleId).pipe(map((list) => list.items)),
-          analyses: this.analysesApi.listForTable(table.id).pipe(map((list) => list.items)),
         }).pipe(map((rest) => ({ table, ...rest })));
       }),
     );
-    this.run(request, 'The table could not be loaded.', (loaded) => {
+    this.perform('loading', request, 'The table could not be loaded.', (loaded) => {
       const rows = loaded.table.mapAxisKpa.length;
       const cols = loaded.table.rpmAxis.length;
       const selection = this.currentSelection();
@@ -167,10 +139,6 @@ export class TableStore {
       this.loaded.set(loaded);
       this.editedValues.set(loaded.head.values);
       this.editHistory.set(EMPTY_HISTORY);
-      this.latestAnalysis.set(null);
-      this.latestPreview.set(null);
-      this.lastAnalyseError.set(null);
-      this.openedBaseValues.set(null);
       this.currentSelection.set(
         isSameTable && selection ? clampSelection(selection, rows, cols) : null,
       );
@@ -213,17 +181,17 @@ export class TableStore {
   }
 
   /**
-   * Runs an operation on the selection as one undo step. Smooth and fill gaps run under the
-   * fuel-safety guard of the analysis shown (the core's default guard without one). Returns what
-   * to tell the user: a refusal, the cells the guard held, or null.
+   * Runs an operation on the selection as one undo step. Smooth and fill gaps run under `guard`:
+   * the fuel-safety guard of the analysis shown (`AnalysisStore.operationGuard`), the core's
+   * default guard without one. Returns what to tell the user: a refusal, the cells the guard
+   * held, or null.
    */
-  operate(op: CellOperation): string | null {
+  operate(op: CellOperation, guard?: LoadGuard): string | null {
     const table = this.table();
     const bounds = this.selectionBounds();
     if (!table || !bounds) return 'Select the cells to change first.';
     const { rpmAxis, mapAxisKpa } = table;
     const values = this.editedValues();
-    const guard = loadGuardOf(this.latestAnalysis()?.guard, true) ?? undefined;
     const result = applyCellOperation(
       { values, bounds, locked: this.lockSet(), rpmAxis, mapAxisKpa, guard },
       op,
@@ -233,11 +201,6 @@ export class TableStore {
     if (result.changed.length === 0) return `${result.label} changed no cell. ${held ?? ''}`.trim();
     this.commit(result.label, result.changed);
     return held;
-  }
-
-  /** Takes the panel's newest preview (null: none). */
-  showPreview(preview: PreviewResult | null): void {
-    this.latestPreview.set(this.latestAnalysis() ? preview : null);
   }
 
   /**
@@ -273,86 +236,44 @@ export class TableStore {
     const table = this.table();
     const parent = this.revision();
     if (!table || !parent || this.waitingFor()) return;
-    this.waitingFor.set('saving');
     const body = { parentId: parent.id, values: this.editedValues().map((r) => [...r]), message };
-    this.run(this.tablesApi.createRevision(table.id, body), 'Saving failed.', (revision) =>
-      this.announceAndReload(revision, `Saved as revision ${revision.number}.`),
+    const request = this.tablesApi.createRevision(table.id, body);
+    this.perform('saving', request, 'Saving failed.', (revision) =>
+      this.showNewRevision(revision, `Saved as revision ${revision.number}.`),
     );
   }
 
-  /** Runs an analysis of the chosen logs with the chosen settings against the loaded revision. */
-  analyse(request: AnalyseRequest): void {
-    const table = this.table();
-    const base = this.revision();
-    if (!table || !base || request.logIds.length === 0 || this.waitingFor()) return;
-    this.waitingFor.set('analysing');
-    this.lastAnalyseError.set(null);
-    const body = {
-      baseRevisionId: base.id,
-      logIds: [...request.logIds],
-      settings: request.settings,
-    };
-    this.run(
-      this.analysesApi.run(table.id, body),
-      'The analysis failed.',
-      (analysis) => {
-        this.latestAnalysis.set(analysis);
-        this.latestPreview.set(null);
-        this.openedBaseValues.set(null);
-        this.refreshAnalyses(table.id);
-      },
-      (message) => this.lastAnalyseError.set(message),
-    );
-  }
-
-  /** Shows an earlier analysis of this table again (its overlays, plots and apply). */
-  openAnalysis(analysisId: string): void {
-    if (this.waitingFor()) return;
-    this.waitingFor.set('analysing');
-    const head = this.revision();
-    const request = this.analysesApi
-      .get(analysisId)
-      .pipe(
-        switchMap((analysis) =>
-          analysis.baseRevisionId === head?.id
-            ? of({ analysis, base: head })
-            : this.tablesApi
-                .revision(analysis.baseRevisionId)
-                .pipe(map((base) => ({ analysis, base }))),
-        ),
-      );
-    this.run(request, 'The analysis could not be loaded.', ({ analysis, base }) => {
-      this.openedBaseValues.set(base.id === head?.id ? null : base.values);
-      this.latestAnalysis.set(analysis);
-      this.latestPreview.set(null);
-    });
-  }
-
-  /** Applies the analysis shown with the panel's options as a new draft revision, then reloads. */
-  applyAnalysis(body: ApplyAnalysisRequest): void {
-    const table = this.table();
-    const analysis = this.latestAnalysis();
-    if (!table || !analysis || this.waitingFor()) return;
-    this.waitingFor.set('applying');
-    this.run(this.analysesApi.apply(analysis.id, body), 'Applying failed.', (revision) =>
-      this.announceAndReload(revision, `Applied as draft revision ${revision.number}.`),
-    );
-  }
-
-  private refreshAnalyses(tableId: string): void {
-    this.analysesApi
-      .listForTable(tableId)
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (list) => this.loaded.update((l) => (l ? { ...l, analyses: list.items } : l)),
-        // The list is a convenience beside the analysis just shown; a miss is not worth a message.
-        error: () => undefined,
-      });
-  }
-
-  private announceAndReload(revision: Revision, text: string): void {
-    this.snackBar.open(text, 'OK', { duration: 6000 });
+  /** Announces a revision just made (saved, or applied from an analysis) and loads it. */
+  showNewRevision(revision: Revision, text: string): void {
+    this.notifier.news(text);
     this.load(revision.tableId);
+  }
+
+  /**
+   * Sends `request` while the workspace waits for `busy`, then calls `onSuccess` with its answer.
+   * A failure is told through the `Notifier` (our own errors with their sentence, HTTP ones with the
+   * server's) and handed to `onError`. Callers check `busy()` first: one thing at a time.
+   */
+  perform<T>(
+    busy: Exclude<TableBusy, null>,
+    request: Observable<T>,
+    fallback: string,
+    onSuccess: (value: T) => void,
+    onError?: (message: string) => void,
+  ): void {
+    this.waitingFor.set(busy);
+    request.pipe(takeUntilDestroyed(this.destroyRef)).subscribe({
+      next: (value) => {
+        this.waitingFor.set(null);
+        onSuccess(value);
+      },
+      error: (error: unknown) => {
+        const text = error instanceof Error ? error.message : apiErrorMessage(error, fallback);
+        this.notifier.failure(text);
+        this.waitingFor.set(null);
+        onError?.(text);
+      },
+    });
   }
 
   private commit(label: string, changes: readonly CellChange[]): void {
@@ -362,26 +283,5 @@ export class TableStore {
   private step(next: HistoryStep): void {
     this.editedValues.set(next.values);
     this.editHistory.set(next.history);
-  }
-
-  private run<T>(
-    request: Observable<T>,
-    fallback: string,
-    onSuccess: (value: T) => void,
-    onError?: (message: string) => void,
-  ): void {
-    request.pipe(takeUntilDestroyed(this.destroyRef)).subscribe({
-      next: (value) => {
-        this.waitingFor.set(null);
-        onSuccess(value);
-      },
-      error: (error: unknown) => {
-        // Our own errors (a table without revisions) carry their sentence; HTTP ones the server's.
-        const text = error instanceof Error ? error.message : apiErrorMessage(error, fallback);
-        this.snackBar.open(text, 'Dismiss', { duration: 8000 });
-        this.waitingFor.set(null);
-        onError?.(text);
-      },
-    });
   }
 }

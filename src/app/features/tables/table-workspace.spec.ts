@@ -13,16 +13,24 @@ import { noAnimations } from '../../../testing/harness-helpers';
 import type { AnalysisCell, AnalysisResource } from '../../core/api/analyses-api';
 import { Session } from '../../core/auth/session';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
+import { defaultApplyValue } from './analysis-apply-model';
 import { AnalysisPanel } from './analysis-panel';
+import { AnalysisStore } from './analysis-store';
 import { TableStore } from './table-store';
 import { TableWorkspace } from './table-workspace';
 import {
   ASSUMED_GUARD,
+  answerAnalysesList,
   answerTableLoad,
   revisionFixture,
   tableFixture,
 } from '../../../testing/table-fixtures';
-import type { PreviewResult } from './proposal-preview-compute';
+import { PREVIEW_DEBOUNCE_MS, PREVIEW_WORKER_FACTORY } from './proposal-preview';
+import type {
+  PreviewResult,
+  PreviewWorkerReply,
+  PreviewWorkerRequest,
+} from './proposal-preview-compute';
 
 // A 4 × 5 table: rows are MAP breakpoints, columns RPM breakpoints.
 const VALUES = [
@@ -57,6 +65,7 @@ const ANALYSIS: AnalysisResource = {
   tableId: 't1',
   baseRevisionId: 'r1',
   logIds: ['l1'],
+  settings: {},
   cells: VALUES.map((row, r) =>
     row.map((_, c) => analysisCell(r === 0 && c === 0 ? 4.24 : r === 0 && c === 1 ? -3.06 : null)),
   ),
@@ -90,11 +99,37 @@ const PREVIEW: PreviewResult = {
   guard: { loadLineKpa: 91.19, leanAllowance: 0.01 },
 };
 
+/**
+ * The preview's worker, standing in for the real one (whose figures `proposal-preview-compute`
+ * checks against the server): it keeps each request and answers the newest when told.
+ */
+class PreviewWorkerStandIn {
+  readonly sent: PreviewWorkerRequest[] = [];
+  onmessage: ((event: MessageEvent<PreviewWorkerReply>) => void) | null = null;
+  onerror: ((event: ErrorEvent) => void) | null = null;
+
+  postMessage(request: PreviewWorkerRequest): void {
+    this.sent.push(request);
+  }
+
+  terminate(): void {
+    this.onmessage = null;
+  }
+
+  /** Answers the newest request with `result`. */
+  answer(result: PreviewResult): void {
+    const id = this.sent.at(-1)?.id ?? 0;
+    this.onmessage?.({ data: { id, ...result } } as MessageEvent<PreviewWorkerReply>);
+  }
+}
+
 describe('TableWorkspace', () => {
   let fixture: ComponentFixture<TableWorkspace>;
   let loader: HarnessLoader;
   let http: HttpTestingController;
   let store: TableStore;
+  let analysis: AnalysisStore;
+  let worker: PreviewWorkerStandIn;
 
   const host = () => fixture.nativeElement as HTMLElement;
   const cellEl = (row: number, col: number) =>
@@ -106,6 +141,17 @@ describe('TableWorkspace', () => {
     await new Promise((resolve) => setTimeout(resolve));
     fixture.detectChanges();
     await fixture.whenStable();
+  }
+
+  /**
+   * Answers the analysis store's read of the table's analyses (none): it starts once the effects
+   * run, and the page is not stable while it waits.
+   */
+  async function answerList(): Promise<void> {
+    await new Promise((resolve) => setTimeout(resolve));
+    TestBed.tick();
+    answerAnalysesList(http);
+    await settle();
   }
 
   /**
@@ -137,12 +183,18 @@ describe('TableWorkspace', () => {
   beforeEach(async () => {
     units.set('metric');
     localStorage.clear();
+    worker = new PreviewWorkerStandIn();
     TestBed.configureTestingModule({
       providers: [
         provideHttpClient(),
         provideHttpClientTesting(),
         provideRouter([]),
         noAnimations,
+        { provide: PREVIEW_DEBOUNCE_MS, useValue: 0 },
+        {
+          provide: PREVIEW_WORKER_FACTORY,
+          useValue: () => Promise.resolve(worker as unknown as Worker),
+        },
         {
           provide: Session,
           useValue: { user: signal({ id: 'u1', name: 'Demo Tuner', roles: ['tuner'] }) },
@@ -161,8 +213,9 @@ describe('TableWorkspace', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     fixture.detectChanges();
     answerTableLoad(http, TABLE, REVISION);
-    await settle();
+    await answerList();
     store = fixture.debugElement.injector.get(TableStore);
+    analysis = fixture.debugElement.injector.get(AnalysisStore);
   });
 
   afterEach(() => http.verify());
@@ -171,14 +224,11 @@ describe('TableWorkspace', () => {
     expect(cellText(0, 0)).toBe('40.0');
     expect(host().querySelector('app-colour-legend')?.textContent).toContain('VE %');
 
-    store.analyse({ logIds: ['l1'], settings: {} });
+    analysis.analyse({ logIds: ['l1'], settings: {} });
     http
       .expectOne((r) => r.method === 'POST' && r.url === '/api/tables/t1/analyses')
       .flush(ANALYSIS);
-    http
-      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
-      .flush({ items: [], total: 0 });
-    await settle();
+    await answerList();
     const toggle = await loader.getHarness(MatButtonToggleHarness.with({ text: 'Lambda error %' }));
     await toggle.check();
     await settle();
@@ -194,22 +244,30 @@ describe('TableWorkspace', () => {
     expect(host().querySelector('app-colour-legend')?.textContent).toContain('% spread');
   });
 
-  /** Runs an analysis answered with `analysis`. */
-  async function showAnalysis(analysis: AnalysisResource = ANALYSIS): Promise<void> {
-    store.analyse({ logIds: ['l1'], settings: {} });
+  /** Runs an analysis answered with `resource`. */
+  async function showAnalysis(resource: AnalysisResource = ANALYSIS): Promise<void> {
+    analysis.analyse({ logIds: ['l1'], settings: {} });
     http
       .expectOne((r) => r.method === 'POST' && r.url === '/api/tables/t1/analyses')
-      .flush(analysis);
-    http
-      .expectOne((r) => r.method === 'GET' && r.url === '/api/tables/t1/analyses')
-      .flush({ items: [], total: 0 });
-    await settle();
+      .flush(resource);
+    await answerList();
+  }
+
+  /**
+   * Sends the apply options as the panel would (it is inert here), waits for the preview's
+   * request to reach the worker, and answers it with `result`.
+   */
+  async function previewOf(result: PreviewResult): Promise<void> {
+    analysis.setApplyOptions(defaultApplyValue());
+    const before = worker.sent.length;
+    for (let round = 0; round < 20 && worker.sent.length === before; round++) await settle();
+    worker.answer(result);
+    await settleRows();
   }
 
   it('When the preview holds a cell under load, then the grid marks it and the change view tells origins apart', async () => {
     await showAnalysis();
-    store.showPreview(PREVIEW);
-    await settleRows();
+    await previewOf(PREVIEW);
     // On the VE view already: the hand-and-dots mark, with its words as the cell's title.
     expect(cellEl(3, 4)?.classList).toContain('cs-held');
     expect(cellEl(3, 4)?.getAttribute('title')).toMatch(/^Held under load, needs data/);
@@ -237,13 +295,18 @@ describe('TableWorkspace', () => {
 
   it('When a new analysis arrives, then the old preview is dropped until its own comes', async () => {
     await showAnalysis();
-    store.showPreview(PREVIEW);
-    await settleRows();
+    await previewOf(PREVIEW);
     expect(cellEl(3, 4)?.classList).toContain('cs-held');
+    const asked = worker.sent.length;
     await showAnalysis({ ...ANALYSIS, id: 'a2' });
     await settleRows();
-    expect(store.preview()).toBeNull();
+    expect(analysis.preview()).toBeNull();
     expect(cellEl(3, 4)?.classList).not.toContain('cs-held');
+    // The new analysis's own preview was asked for; once it comes, its marks show.
+    expect(worker.sent.length).toBeGreaterThan(asked);
+    worker.answer(PREVIEW);
+    await settleRows();
+    expect(cellEl(3, 4)?.classList).toContain('cs-held');
   });
 
   it('When flags are loud and watched, then the banner shows them apart with their words', async () => {
@@ -289,10 +352,12 @@ describe('TableWorkspace', () => {
     expect(store.operate({ kind: 'fillGaps' })).toBeNull();
     expect(store.values()[1][1]).toBe(52);
 
-    // With an analysis whose line lies above the table, the fill under load runs too.
+    // With an analysis whose line lies above the table, the page's fill under load runs too.
     await showAnalysis({ ...ANALYSIS, guard: { ...ASSUMED_GUARD, loadLineKpa: 130 } });
     store.select({ anchor: { row: 3, col: 2 }, focus: { row: 3, col: 2 } });
-    expect(store.operate({ kind: 'fillGaps' })).toBeNull();
+    await settle();
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Fill gaps' }))).click();
+    await settle();
     expect(store.values()[3][2]).toBeLessThan(74);
   });
 

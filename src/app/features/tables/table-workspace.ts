@@ -15,24 +15,24 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
 import { Session } from '../../core/auth/session';
+import { Notifier } from '../../core/notify/notifier';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
-import { formatQuantity } from '../../shared/units/format-quantity';
-import { unitLabel } from '../../shared/units/display-units';
 import { AnalysisHistory } from './analysis-history';
 import { AnalysisPanel, type ApplyRequest } from './analysis-panel';
+import { AnalysisStore } from './analysis-store';
 import type { CellOperation } from './cell-operations';
 import { CellOpsBar } from './cell-ops-bar';
 import { ColourLegend } from './colour-legend';
 import { historyKeyAction } from './edit-history';
-import { KPA_AXIS, type MapAxisDisplay } from './grid-model';
+import { type MapAxisDisplay, mapAxisDisplay } from './grid-model';
 import { LeanBanner } from './lean-banner';
 import { OVERLAYS, overlayView, type OverlayKind } from './overlays';
 import { type CellEditRequest, TableGrid } from './table-grid';
 import { WorkspacePlots } from './plots/workspace-plots';
+import { ProposalPreview } from './proposal-preview';
 import { TableStore } from './table-store';
 
 /**
@@ -59,17 +59,20 @@ import { TableStore } from './table-store';
     TableGrid,
     WorkspacePlots,
   ],
-  providers: [TableStore],
+  // The analysis store reads the table store; the preview's worker ends with this page.
+  providers: [TableStore, AnalysisStore, ProposalPreview],
   templateUrl: './table-workspace.html',
   styleUrl: './table-workspace.scss',
   host: { '(keydown)': 'onKeydown($event)' },
 })
 export class TableWorkspace {
   private readonly session = inject(Session);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notifier = inject(Notifier);
   private readonly preferences = inject(DisplayPreferences);
-  /** The workspace's state. */
+  /** The workspace's state: the table, its edits, the selection and the locks. */
   protected readonly store = inject(TableStore);
+  /** The analysis shown, the earlier ones, and the preview of applying it. */
+  protected readonly analysis = inject(AnalysisStore);
 
   /** The table id from the route. */
   readonly id = input.required<string>();
@@ -78,7 +81,7 @@ export class TableWorkspace {
   protected readonly overlays = OVERLAYS;
   /** The overlay shown; back to VE whenever the analysis goes away. */
   protected readonly overlay = linkedSignal<OverlayKind>(() => {
-    this.store.analysis();
+    this.analysis.analysis();
     return 've';
   });
   /** The cell the plots detail: the selection's moving end. */
@@ -88,19 +91,14 @@ export class TableWorkspace {
   });
   /** The number of the revision the analysis shown was run on (the head's, before one runs). */
   protected readonly analysisBaseNumber = computed(() => {
-    const analysis = this.store.analysis();
+    const analysis = this.analysis.analysis();
     const id = analysis?.baseRevisionId ?? this.store.revision()?.id;
     return this.store.revisions().find((r) => r.id === id)?.number ?? null;
   });
   /** The MAP axis in the user's units: kPa, or psi(a) for imperial (values stay kPa inside). */
-  protected readonly mapAxis = computed((): MapAxisDisplay => {
-    const units = this.preferences.units();
-    if (units === 'metric') return KPA_AXIS;
-    return {
-      unit: unitLabel('pressure', units),
-      label: (kpa) => formatQuantity('pressure', kpa, units, { unit: false }),
-    };
-  });
+  protected readonly mapAxis = computed((): MapAxisDisplay =>
+    mapAxisDisplay(this.preferences.units()),
+  );
   /** Lambda or AFR, as the user prefers. */
   protected readonly mixture = computed(() => this.preferences.mixture());
   /** Metric or imperial, as the user prefers. */
@@ -115,9 +113,9 @@ export class TableWorkspace {
     overlayView({
       kind: this.overlay(),
       values: this.store.values(),
-      baseValues: this.store.analysisBaseValues(),
-      analysis: this.store.analysis(),
-      preview: this.store.preview(),
+      baseValues: this.analysis.baseValues(),
+      analysis: this.analysis.analysis(),
+      preview: this.analysis.preview(),
     }),
   );
   /** Whether values can be changed now: a tuner, looking at the VE. */
@@ -159,9 +157,12 @@ export class TableWorkspace {
     this.tell(this.store.paste(text));
   }
 
-  /** Runs a cell operation on the selection; a refusal is told. */
+  /**
+   * Runs a cell operation on the selection, smooth and fill gaps under the guard of the analysis
+   * shown; a refusal or the cells the guard held are told.
+   */
   protected onOperate(op: CellOperation): void {
-    this.tell(this.store.operate(op));
+    this.tell(this.store.operate(op, this.analysis.operationGuard()));
   }
 
   /** Locks or unlocks the selected cells. */
@@ -181,7 +182,7 @@ export class TableWorkspace {
   }
 
   private tell(message: string | null): void {
-    if (message) this.snackBar.open(message, 'OK', { duration: 6000 });
+    if (message) this.notifier.news(message);
   }
 
   /** Saves the grid as a new revision. */
@@ -190,12 +191,9 @@ export class TableWorkspace {
     this.saveMessage.set('');
   }
 
-  /**
-   * Applies the analysis as a draft revision. A bridge to the panel's new request until the
-   * store takes its whole body (settings, locks, only-cells): step fraction and message for now.
-   */
+  /** Applies the analysis shown as a draft revision with the panel's whole body. */
   protected apply(request: ApplyRequest): void {
-    this.store.applyAnalysis(request.body);
+    this.analysis.apply(request.body);
   }
 
   /** A cell picked in a plot becomes the grid's selection, so both show the same cell. */

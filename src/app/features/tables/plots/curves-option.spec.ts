@@ -39,6 +39,25 @@ describe('curves option', () => {
     expect(lines.every((s) => s.type === 'line' && s.lineStyle?.width === 1.5)).toBe(true);
   });
 
+  it('When the user prefers imperial units, then each line is named in psi(a)', () => {
+    const proposal = INPUT.values.map((row) => [...row]);
+    const lines = series({
+      ...INPUT,
+      proposal,
+      selectedCell: { row: 1, col: 0 },
+      units: 'imperial',
+    });
+    // 40, 70, 100 kPa = 5.80, 10.15, 14.50 psi (1 psi = 6.894757 kPa, NIST SP 811, 2008
+    // edition, Appendix B.8) [S]
+    expect(lines.map((s) => s.name)).toEqual([
+      '5.8 psi(a)',
+      '10.15 psi(a)',
+      '14.5 psi(a)',
+      '10.15 psi(a) proposal',
+      'Picked cell',
+    ]);
+  });
+
   it('When a cell is picked with a preview, then its row is bold and what applies dashed', () => {
     const proposal = [
       [41, 46, 51],

@@ -11,9 +11,10 @@ import type {
   TooltipComponentOption,
 } from 'echarts/components';
 import type { ComposeOption } from 'echarts/core';
+import type { UnitSystem } from '@shared/contracts/preferences';
 import { SEQUENTIAL_STOPS, colourAt } from '../../../shared/ui/colour-scale';
 import type { ChartTheme } from './chart-theme';
-import type { CellRef } from './plot-format';
+import { type CellRef, mapScale } from './plot-format';
 
 /** An ECharts option of the curves. */
 export type CurvesOption = ComposeOption<
@@ -41,6 +42,8 @@ export interface CurvesInput {
   readonly selectedCell: CellRef | null;
   /** The frame's colours. */
   readonly theme: ChartTheme;
+  /** The user's units: each line named in kPa, or psi(a) for imperial (default metric). */
+  readonly units?: UnitSystem;
 }
 
 /**
@@ -53,21 +56,22 @@ export function rowColour(row: number, rows: number, isDark: boolean): string {
   return colourAt(SEQUENTIAL_STOPS, from + t * (to - from));
 }
 
-/** The name of a MAP row's line. */
-export function rowName(mapKpa: number): string {
-  return `${mapKpa} kPa`;
+/** The name of a MAP row's line, in the user's units ("100 kPa", "14.5 psi(a)"). */
+export function rowName(mapKpa: number, units: UnitSystem = 'metric'): string {
+  const scale = mapScale(units);
+  return `${scale.label(mapKpa)} ${scale.unit}`;
 }
 
 /** The curves' ECharts option. */
 export function curvesOption(input: CurvesInput): CurvesOption {
-  const { rpmAxis, mapAxisKpa, values, theme, selectedCell } = input;
+  const { rpmAxis, mapAxisKpa, values, theme, selectedCell, units = 'metric' } = input;
   const rows = mapAxisKpa.length;
   const series: (LineSeriesOption | ScatterSeriesOption)[] = mapAxisKpa.map((mapKpa, r) => {
     const isPicked = selectedCell?.row === r;
     const colour = rowColour(r, rows, theme.isDark);
     return {
       type: 'line',
-      name: rowName(mapKpa),
+      name: rowName(mapKpa, units),
       data: rpmAxis.map((rpm, c) => [rpm, values[r]?.[c] ?? null]),
       color: colour,
       symbol: 'circle',
@@ -84,7 +88,7 @@ export function curvesOption(input: CurvesInput): CurvesOption {
     if (proposal) {
       series.push({
         type: 'line',
-        name: `${rowName(mapAxisKpa[r])} proposal`,
+        name: `${rowName(mapAxisKpa[r], units)} proposal`,
         data: rpmAxis.map((rpm, c) => [rpm, proposal[c] ?? null]),
         color: colour,
         symbol: 'emptyCircle',

@@ -96,6 +96,22 @@ function item(layer: HeatLayer, row: number, col: number) {
 }
 
 describe('heat map option', () => {
+  it('When the user prefers imperial units, then the MAP axis and the tooltips read in psi(a)', () => {
+    const option = heatMapOption({ ...INPUT, units: 'imperial' }) as {
+      yAxis: { data: string[]; name: string };
+      tooltip: { formatter: (p: unknown) => string };
+    };
+    // 40 kPa = 5.80 psi, 100 kPa = 14.50 psi (1 psi = 6.894757 kPa, NIST SP 811, 2008 edition,
+    // Appendix B.8) [S]; labels drop trailing zeros past the first decimal.
+    expect(option.yAxis).toMatchObject({ name: 'MAP psi(a)', data: ['5.8', '14.5'] });
+    expect(option.tooltip.formatter({ value: [0, 1, 0.5, 70] })).toBe(
+      '1000 rpm · 14.5 psi(a)\nVE 70.0 %\nHeld under load: needs data (keeps its value)',
+    );
+    // The cells stay where they were: only the names of the rows change.
+    const data = (input: HeatMapInput) => (heatMapOption(input).series as { data: unknown }[])[0];
+    expect(data({ ...INPUT, units: 'imperial' }).data).toEqual(data(INPUT).data);
+  });
+
   it('When the option is built, then the axes carry the breakpoints and the names', () => {
     const option = heatMapOption(INPUT) as {
       xAxis: { data: string[]; name: string };

@@ -12,6 +12,7 @@ import type {
   VisualMapComponentOption,
 } from 'echarts/components';
 import type { ComposeOption } from 'echarts/core';
+import type { UnitSystem } from '@shared/contracts/preferences';
 import type { AnalysisResource } from '../../../core/api/analyses-api';
 import {
   DIVERGING_STOPS,
@@ -27,6 +28,7 @@ import {
   MINUS,
   NO_FIGURE,
   lambdaErrorText,
+  mapScale,
   sampleStops,
   signed,
 } from './plot-format';
@@ -80,6 +82,8 @@ export interface HeatMapInput {
   readonly selectedCell: CellRef | null;
   /** The frame's colours. */
   readonly theme: ChartTheme;
+  /** The user's units: the MAP axis and tooltips in kPa, or psi(a) for imperial (default metric). */
+  readonly units?: UnitSystem;
 }
 
 /** The legend under a plot: the grid's own legend shape (gradient, labelled ends, a note). */
@@ -156,8 +160,9 @@ function cellText(layer: HeatLayer, value: number): string {
 }
 
 /**
- * The tooltip of a cell: its breakpoints, its figure and what the figure means, and how the
- * apply sets it (the proposal and change layers; a held cell says so on every layer).
+ * The tooltip of a cell: its breakpoints (MAP in the user's units), its figure and what the
+ * figure means, and how the apply sets it (the proposal and change layers; a held cell says so
+ * on every layer).
  */
 export function heatTooltip(
   layer: HeatLayer,
@@ -165,8 +170,10 @@ export function heatTooltip(
   mapKpa: number,
   value: number,
   origin: CellOrigin | null = null,
+  units: UnitSystem = 'metric',
 ): string {
-  const where = `${rpm} rpm · ${mapKpa} kPa`;
+  const scale = mapScale(units);
+  const where = `${rpm} rpm · ${scale.label(mapKpa)} ${scale.unit}`;
   const how =
     origin && (showsOrigin(layer) || origin === 'held') ? `\n${ORIGIN_LABEL[origin]}` : '';
   switch (layer) {
@@ -183,7 +190,8 @@ export function heatTooltip(
 
 /** The heat map's ECharts option. */
 export function heatMapOption(input: HeatMapInput): HeatMapOption {
-  const { rpmAxis, mapAxisKpa, theme, layer } = input;
+  const { rpmAxis, mapAxisKpa, theme, layer, units = 'metric' } = input;
+  const scale = mapScale(units);
   const figures = mapAxisKpa.map((_, r) => rpmAxis.map((_, c) => layerFigure(input, r, c)));
   const range = sequentialRange(input);
   const diverging = layer === 'change' || layer === 'lambdaError';
@@ -245,7 +253,8 @@ export function heatMapOption(input: HeatMapInput): HeatMapOption {
         const value = (params as { value?: unknown }).value as HeatDatum | undefined;
         if (!value) return '';
         const origin = originAt(input, value[1], value[0]);
-        return heatTooltip(layer, rpmAxis[value[0]], mapAxisKpa[value[1]], value[3], origin);
+        const [col, row, , figure] = value;
+        return heatTooltip(layer, rpmAxis[col], mapAxisKpa[row], figure, origin, units);
       },
     },
     xAxis: {
@@ -261,11 +270,11 @@ export function heatMapOption(input: HeatMapInput): HeatMapOption {
     },
     yAxis: {
       type: 'category',
-      name: 'MAP kPa',
+      name: `MAP ${scale.unit}`,
       nameLocation: 'middle',
       nameGap: 44,
       nameTextStyle,
-      data: mapAxisKpa.map(String),
+      data: mapAxisKpa.map(scale.label),
       axisLabel,
       axisLine: { lineStyle: { color: theme.line } },
     },

@@ -3,7 +3,10 @@
  * sign, lean/rich words, the limit of the diverging scale, and our scales sampled into colour
  * stops for ECharts.
  */
+import type { UnitSystem } from '@shared/contracts/preferences';
 import { colourAt, type ColourStop } from '../../../shared/ui/colour-scale';
+import { fromDisplay, toDisplay, unitLabel } from '../../../shared/units/display-units';
+import { formatQuantity } from '../../../shared/units/format-quantity';
 
 /** Lambda error and change at or beyond this many percent take the full hue (as the grid). */
 export const DIVERGING_LIMIT_PCT = 10;
@@ -71,4 +74,47 @@ function nearestIndex(axis: readonly number[], x: number): number {
     if (Math.abs(axis[i] - x) < Math.abs(axis[best] - x)) best = i;
   }
   return best;
+}
+
+/**
+ * How the plots show MAP in the user's units: kPa as stored, or psi(a) for imperial (the table
+ * and the API stay in kPa; only axes, names and tooltips change).
+ */
+export interface MapScale {
+  /** The unit, "kPa" or "psi(a)". */
+  readonly unit: string;
+  /** A pressure in kPa in the shown unit. */
+  readonly toShown: (kpa: number) => number;
+  /** A pressure in the shown unit back in kPa. */
+  readonly toKpa: (shown: number) => number;
+  /** A breakpoint (kPa) as an axis or a line names it, without the unit. */
+  readonly label: (kpa: number) => string;
+  /** Decimals of a sample's MAP in a tooltip. */
+  readonly digits: number;
+  /** A value axis's ends are rounded outwards to a multiple of this, in the shown unit. */
+  readonly step: number;
+}
+
+/** MAP in kPa, as the plots have always drawn it. */
+const KPA_SCALE: MapScale = {
+  unit: 'kPa',
+  toShown: (kpa) => kpa,
+  toKpa: (kpa) => kpa,
+  label: (kpa) => String(kpa),
+  digits: 1,
+  step: 10,
+};
+
+/** The MAP scale of `units` (metric: kPa; imperial: psi(a), 0.01 psi on labels). */
+export function mapScale(units: UnitSystem = 'metric'): MapScale {
+  if (units === 'metric') return KPA_SCALE;
+  return {
+    unit: unitLabel('pressure', units),
+    toShown: (kpa) => toDisplay('pressure', kpa, units),
+    toKpa: (shown) => fromDisplay('pressure', shown, units),
+    label: (kpa) => formatQuantity('pressure', kpa, units, { unit: false }),
+    digits: 2,
+    // 1 psi is about 7 kPa: about as coarse as the 10 kPa steps of the metric axis.
+    step: 1,
+  };
 }

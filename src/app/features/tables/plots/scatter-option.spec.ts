@@ -105,6 +105,26 @@ describe('scatter option', () => {
     expect(option.tooltip.formatter({ value: [2500, 90, -2, 0] })).toBe(text);
   });
 
+  it('When the user prefers imperial units, then the MAP axis, breakpoints and tooltip read in psi(a)', () => {
+    const imperial = scatterOption({ ...INPUT, units: 'imperial' }) as {
+      series: Series[];
+      yAxis: { name: string; min: number; max: number };
+      tooltip: { formatter: (p: unknown) => string };
+    };
+    // 1 psi = 6.894757 kPa (NIST SP 811, 2008 edition, Appendix B.8) [S]: 50 kPa = 7.2519 psi,
+    // 30.4 kPa = 4.4091 psi, 100 kPa = 14.5038 psi.
+    const [first] = imperial.series[0].data;
+    expect(first.value[1]).toBeCloseTo(7.2519, 4);
+    const topLine = imperial.series[0].markLine?.data.at(-1) as { yAxis: number };
+    expect(topLine.yAxis).toBeCloseTo(14.5038, 4);
+    // The axis reaches out to whole psi below the samples, and up to the top breakpoint.
+    expect(imperial.yAxis).toMatchObject({ name: 'MAP psi(a)', min: 4 });
+    expect(imperial.yAxis.max).toBeCloseTo(14.5038, 4);
+    expect(imperial.tooltip.formatter({ value: [2500, 13.05, -2, 0] })).toBe(
+      '2,500 rpm · 13.05 psi(a)\nLambda error ▼ \u22122.0 % rich\nLog 1',
+    );
+  });
+
   it.each([
     ['thinned', '4 of 10 kept samples, evenly spread over the logs.', SAMPLES],
     ['all there', 'All 4 samples the analysis kept.', { ...SAMPLES, total: 4 }],

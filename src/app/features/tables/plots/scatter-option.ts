@@ -12,11 +12,12 @@ import type {
   TooltipComponentOption,
 } from 'echarts/components';
 import type { ComposeOption } from 'echarts/core';
+import type { UnitSystem } from '@shared/contracts/preferences';
 import type { AnalysisSamples } from '../../../core/api/analyses-api';
 import { DIVERGING_STOPS, divergingColour, gradientCss } from '../../../shared/ui/colour-scale';
 import type { ChartTheme } from './chart-theme';
 import type { PlotLegend } from './heat-map-option';
-import { DIVERGING_LIMIT_PCT, MINUS, grouped, lambdaErrorText } from './plot-format';
+import { DIVERGING_LIMIT_PCT, MINUS, grouped, lambdaErrorText, mapScale } from './plot-format';
 
 /** An ECharts option of the samples. */
 export type ScatterOption = ComposeOption<
@@ -37,9 +38,14 @@ export interface ScatterInput {
   readonly samples: AnalysisSamples;
   /** The frame's colours. */
   readonly theme: ChartTheme;
+  /** The user's units: the MAP axis in kPa, or psi(a) for imperial (default metric). */
+  readonly units?: UnitSystem;
 }
 
-/** A sample as ECharts data: `[rpm, mapKpa, lambda error %, log index]`. */
+/**
+ * A sample as ECharts data: `[rpm, MAP in the shown unit (kPa, or psi(a) for imperial), lambda
+ * error %, log index]`. The MAP is converted so the value axis reads in the user's unit.
+ */
 export type SampleDatum = [number, number, number, number];
 
 /** A downward triangle for the legend (ECharts path syntax). */
@@ -82,25 +88,29 @@ function dataRange(values: readonly number[], step: number): number[] {
   return [Math.floor(lo / step) * step, Math.ceil(hi / step) * step];
 }
 
-/** The tooltip of one sample. */
-export function sampleTooltip(datum: SampleDatum): string {
-  const [rpm, mapKpa, errorPct, log] = datum;
+/** The tooltip of one sample (its MAP already in the unit of `units`). */
+export function sampleTooltip(datum: SampleDatum, units: UnitSystem = 'metric'): string {
+  const [rpm, map, errorPct, log] = datum;
+  const scale = mapScale(units);
   return (
-    `${grouped(rpm)} rpm · ${mapKpa.toFixed(1)} kPa\n` +
+    `${grouped(rpm)} rpm · ${map.toFixed(scale.digits)} ${scale.unit}\n` +
     `Lambda error ${lambdaErrorText(errorPct)}\nLog ${log + 1}`
   );
 }
 
 /** The samples' ECharts option. */
 export function scatterOption(input: ScatterInput): ScatterOption {
-  const { rpmAxis, mapAxisKpa, samples, theme } = input;
+  const { rpmAxis, mapAxisKpa, samples, theme, units = 'metric' } = input;
+  const scale = mapScale(units);
+  const mapShown = units === 'metric' ? samples.mapKpa : samples.mapKpa.map(scale.toShown);
+  const breakpointsShown = mapAxisKpa.map(scale.toShown);
   const cache = new Map<number, string>();
   const lean: SampleItem[] = [];
   const rich: SampleItem[] = [];
   for (let i = 0; i < samples.returned; i++) {
     const datum: SampleDatum = [
       samples.rpm[i],
-      samples.mapKpa[i],
+      mapShown[i],
       samples.lambdaErrorPct[i],
       samples.logIndex[i],
     ];
@@ -115,7 +125,7 @@ export function scatterOption(input: ScatterInput): ScatterOption {
     lineStyle: { color: theme.gridLine, type: 'dashed', width: 1 },
     data: [
       ...rpmAxis.map((rpm) => ({ xAxis: rpm })),
-      ...mapAxisKpa.map((mapKpa) => ({ yAxis: mapKpa })),
+      ...breakpointsShown.map((map) => ({ yAxis: map })),
     ],
   };
   const common: ScatterSeriesOption = {
@@ -129,7 +139,7 @@ export function scatterOption(input: ScatterInput): ScatterOption {
   };
   // Samples beyond the table's ends count for its edge cells; the axes reach out to show them.
   const rpmRange = dataRange(samples.rpm, 100);
-  const mapRange = dataRange(samples.mapKpa, 10);
+  const mapRange = dataRange(mapShown, scale.step);
   const axisLabel = { color: theme.text, fontSize: 11 };
   const nameTextStyle = { color: theme.mutedText };
   return {
@@ -156,7 +166,7 @@ export function scatterOption(input: ScatterInput): ScatterOption {
       textStyle: { color: theme.text },
       formatter: (params) => {
         const value = (params as { value?: unknown }).value as SampleDatum | undefined;
-        return value ? sampleTooltip(value) : '';
+        return value ? sampleTooltip(value, units) : '';
       },
     },
     xAxis: {
@@ -173,12 +183,12 @@ export function scatterOption(input: ScatterInput): ScatterOption {
     },
     yAxis: {
       type: 'value',
-      name: 'MAP kPa',
+      name: `MAP ${scale.unit}`,
       nameLocation: 'middle',
       nameGap: 40,
       nameTextStyle,
-      min: Math.min(mapAxisKpa[0], ...mapRange),
-      max: Math.max(mapAxisKpa[mapAxisKpa.length - 1], ...mapRange),
+      min: Math.min(breakpointsShown[0], ...mapRange),
+      max: Math.max(breakpointsShown[breakpointsShown.length - 1], ...mapRange),
       axisLabel,
       axisLine: { lineStyle: { color: theme.line } },
       splitLine: { show: false },

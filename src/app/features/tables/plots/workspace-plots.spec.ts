@@ -70,6 +70,7 @@ const ANALYSIS: AnalysisResource = {
   tableId: 't1',
   baseRevisionId: 'r1',
   logIds: ['l1'],
+  settings: {},
   cells: [
     [cellOf(2), cellOf(-1), cellOf(0)],
     [cellOf(4), cellOf(1), cellOf(-3)],
@@ -226,6 +227,29 @@ describe('WorkspacePlots', () => {
     await tabs.selectTab({ label: 'Heat map' });
     await tabs.selectTab({ label: 'Samples' });
     http.expectNone('/api/analyses/a1/samples?max=4000');
+  });
+
+  it('When the user prefers imperial units, then MAP reads in psi(a) and a sample picks its cell', async () => {
+    fixture.componentRef.setInput('units', 'imperial');
+    fixture.componentRef.setInput('analysis', ANALYSIS);
+    await settleCharts(fixture);
+    const heat = charts[0].options.at(-1) as { yAxis: { name: string; data: string[] } };
+    // 40 kPa = 5.80 psi, 100 kPa = 14.50 psi (NIST SP 811, 2008 edition, Appendix B.8) [S]
+    expect(heat.yAxis).toEqual(
+      expect.objectContaining({ name: 'MAP psi(a)', data: ['5.8', '14.5'] }),
+    );
+
+    const tabs = await loader.getHarness(MatTabGroupHarness);
+    const opening = tabs.selectTab({ label: 'Samples' });
+    (await sentRequest(http, '/api/analyses/a1/samples?max=4000')).flush(SAMPLES);
+    await opening;
+    await settleCharts(fixture);
+    const scatter = charts.at(-1) as FakeChart;
+    const drawn = scatter.options.at(-1) as { yAxis: { name: string } };
+    expect(drawn.yAxis.name).toBe('MAP psi(a)');
+    // The chart hands back the sample in psi(a): 95 kPa = 13.78 psi lies nearest the 100 kPa row.
+    scatter.handlers.get('click')?.({ value: [2900, 13.78, -2, 0] });
+    expect(picks).toEqual([{ row: 1, col: 2 }]);
   });
 
   it('When another analysis comes while Samples shows, then its samples are asked for', async () => {

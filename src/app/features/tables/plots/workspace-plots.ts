@@ -1,4 +1,4 @@
-import type { MixtureDisplay } from '@shared/contracts/preferences';
+import type { MixtureDisplay, UnitSystem } from '@shared/contracts/preferences';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -27,7 +27,7 @@ import { CellDetail } from './cell-detail';
 import { chartTheme, schemeIsDark } from './chart-theme';
 import { curvesOption } from './curves-option';
 import { HEAT_LAYERS, type HeatLayer, heatLegend, heatMapOption } from './heat-map-option';
-import { type CellRef, nearestCell } from './plot-format';
+import { type CellRef, mapScale, nearestCell } from './plot-format';
 import { ColourLegend } from '../colour-legend';
 import type { PreviewResult } from '../proposal-preview-compute';
 import { type SampleDatum, samplesCaption, samplesLegend, scatterOption } from './scatter-option';
@@ -94,6 +94,8 @@ export class WorkspacePlots {
   readonly isDark = input<boolean | null>(null);
   /** Lambda or AFR in the cell detail, as the user prefers. */
   readonly mixture = input<MixtureDisplay>('lambda');
+  /** Metric or imperial: MAP on the axes, line names and tooltips in kPa or psi(a). */
+  readonly units = input<UnitSystem>('metric');
   /** A cell picked on a chart. */
   readonly cellPick = output<CellRef>();
 
@@ -139,6 +141,7 @@ export class WorkspacePlots {
     layer: this.layer(),
     selectedCell: this.picked(),
     theme: this.theme(),
+    units: this.units(),
   }));
   /** The heat map. */
   protected readonly heatOption = computed(() => heatMapOption(this.heatInput()));
@@ -153,6 +156,7 @@ export class WorkspacePlots {
       proposal: this.analysis() ? (this.preview()?.values ?? null) : null,
       selectedCell: this.picked(),
       theme: this.theme(),
+      units: this.units(),
     }),
   );
 
@@ -189,6 +193,7 @@ export class WorkspacePlots {
           mapAxisKpa: this.mapAxisKpa(),
           samples,
           theme: this.theme(),
+          units: this.units(),
         })
       : null;
   });
@@ -239,11 +244,12 @@ export class WorkspacePlots {
     this.pick({ row, col: event.dataIndex });
   }
 
-  /** A click on a sample: the cell whose breakpoints lie nearest. */
+  /** A click on a sample: the cell whose breakpoints lie nearest (its MAP back in kPa). */
   protected pickFromSamples(event: ECElementEvent): void {
     const value = event.value as unknown as SampleDatum | undefined;
     if (!Array.isArray(value)) return;
-    this.pick(nearestCell(this.rpmAxis(), this.mapAxisKpa(), value[0], value[1]));
+    const mapKpa = mapScale(this.units()).toKpa(value[1]);
+    this.pick(nearestCell(this.rpmAxis(), this.mapAxisKpa(), value[0], mapKpa));
   }
 
   private pick(cell: CellRef): void {
