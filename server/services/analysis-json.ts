@@ -2,7 +2,11 @@ import type { CellStats } from '../../shared/accumulate';
 import type { AnalysisCell } from '../../shared/contracts/analyses';
 import { gridToJsonRows, jsonRowsToGrid, type Grid } from '../../shared/core/table';
 import type { Analysis } from '../../shared/pipeline';
-import { type StoredCellGrid, type StoredCells, type StoredProposal } from '../repositories/stored-analysis';
+import {
+  type StoredCellGrid,
+  type StoredCells,
+  type StoredProposal,
+} from '../repositories/stored-analysis';
 
 export type { StoredCells, StoredProposal } from '../repositories/stored-analysis';
 
