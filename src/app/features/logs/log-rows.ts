@@ -1,5 +1,5 @@
 import type { MixtureDisplay, UnitSystem } from '@shared/contracts/preferences';
-import { type Quantity, toDisplay, unitLabel } from '../../shared/units/display-units';
+import { type Quantity, toDisplay, unitLabel } from '../../ui/units/display-units';
 import { CHANNELS, type Channel } from '@shared/core/channels';
 import type { LogResource } from '@shared/contracts/logs';
 

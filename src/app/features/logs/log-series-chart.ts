@@ -22,7 +22,7 @@ import { apiErrorMessage } from '../../core/api/api-error';
 import { LogsApi } from '../../core/api/logs-api';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { ThemePreference } from '../../core/theme/theme-preference';
-import { provideCharts } from '../../shared/charts/provide-charts';
+import { provideCharts } from '../../ui/charts/provide-charts';
 import {
   chartHeightPx,
   seriesChartOption,

@@ -4,14 +4,14 @@ import type { BeyondTable, MappingSource } from '@shared/contracts/logs';
 import type { UnitSystem } from '@shared/contracts/preferences';
 import type { Role } from '@shared/contracts/roles';
 import { apiErrorMessage } from '../../core/api/api-error';
-import { formatQuantity } from '../../shared/units/format-quantity';
+import { formatQuantity } from '../../ui/units/format-quantity';
 
 export {
   LOG_STATUS_LABELS,
   durationText as formatDuration,
   isLogPending as isPending,
   logStatusText as statusLabel,
-} from '../../shared/ui/log-status';
+} from '../../ui/parts/log-status';
 
 /** Where a log's column mapping came from, in words. */
 export const MAPPING_SOURCE_LABELS: Readonly<Record<MappingSource, string>> = {

@@ -1,6 +1,6 @@
 import type { LogSeries, SeriesEnvelope } from '@shared/contracts/logs';
 import type { MixtureDisplay, UnitSystem } from '@shared/contracts/preferences';
-import { mixtureToDisplay, toDisplay, unitLabel } from '../../shared/units/display-units';
+import { mixtureToDisplay, toDisplay, unitLabel } from '../../ui/units/display-units';
 
 /**
  * Pure helpers of the log chart: the stretches the filter keeps, a zoomed-in window spliced into

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { Session } from '../../core/auth/session';
-import { AreaIntro } from '../../shared/ui/area-intro';
-import { textForRoles } from '../../shared/ui/role-text';
+import { AreaIntro } from '../../ui/parts/area-intro';
+import { textForRoles } from '../../ui/parts/role-text';
 
 /** The plans area. Its records arrive with the plans API; until then it says so honestly. */
 @Component({

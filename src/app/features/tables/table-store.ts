@@ -20,8 +20,8 @@ import {
   clampSelection,
   withBounds,
   selectionBounds,
-} from './cell-range';
-import { type CellOperation, applyCellOperation, heldNote } from './cell-operations';
+} from './grid/cell-range';
+import { type CellOperation, applyCellOperation, heldNote } from './grid/cell-operations';
 import {
   EMPTY_HISTORY,
   type CellChange,
@@ -32,13 +32,13 @@ import {
   historyActionLabels,
   redoEdit,
   undoEdit,
-} from './edit-history';
-import { cellName } from './grid-model';
-import { pasteText } from './table-clipboard';
-import { readLocks, saveLocks } from './table-locks';
-import { parseVeInput } from './ve-input';
+} from './grid/edit-history';
+import { cellName } from './grid/grid-model';
+import { pasteText } from './grid/table-clipboard';
+import { readLocks, saveLocks } from './grid/table-locks';
+import { parseVeInput } from './grid/ve-input';
 
-export { locksStorageKey } from './table-locks';
+export { locksStorageKey } from './grid/table-locks';
 
 /** What the workspace is waiting for, if anything. */
 export type TableBusy = 'loading' | 'saving' | 'analysing' | 'applying' | null;

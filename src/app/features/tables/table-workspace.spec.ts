@@ -13,9 +13,9 @@ import { noAnimations } from '../../../testing/harness-helpers';
 import type { AnalysisCell, AnalysisResource } from '../../core/api/analyses-api';
 import { Session } from '../../core/auth/session';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
-import { defaultApplyValue } from './analysis-apply-model';
-import { AnalysisPanel } from './analysis-panel';
-import { AnalysisStore } from './analysis-store';
+import { defaultApplyValue } from './analysis/analysis-apply-model';
+import { AnalysisPanel } from './analysis/analysis-panel';
+import { AnalysisStore } from './analysis/analysis-store';
 import { TableStore } from './table-store';
 import { TableWorkspace } from './table-workspace';
 import {
@@ -25,12 +25,12 @@ import {
   revisionFixture,
   tableFixture,
 } from '../../../testing/table-fixtures';
-import { PREVIEW_DEBOUNCE_MS, PREVIEW_WORKER_FACTORY } from './proposal-preview';
+import { PREVIEW_DEBOUNCE_MS, PREVIEW_WORKER_FACTORY } from './preview/proposal-preview';
 import type {
   PreviewResult,
   PreviewWorkerReply,
   PreviewWorkerRequest,
-} from './proposal-preview-compute';
+} from './preview/proposal-preview-compute';
 
 // A 4 × 5 table: rows are MAP breakpoints, columns RPM breakpoints.
 const VALUES = [

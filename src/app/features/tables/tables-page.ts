@@ -8,8 +8,8 @@ import { catchError, forkJoin, map, of, switchMap } from 'rxjs';
 import { TablesApi } from '../../core/api/tables-api';
 import { VehiclesApi } from '../../core/api/vehicles-api';
 import { Session } from '../../core/auth/session';
-import { AreaIntro } from '../../shared/ui/area-intro';
-import { textForRoles } from '../../shared/ui/role-text';
+import { AreaIntro } from '../../ui/parts/area-intro';
+import { textForRoles } from '../../ui/parts/role-text';
 
 /** A vehicle with its tables. */
 interface VehicleTables {

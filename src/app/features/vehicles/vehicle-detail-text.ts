@@ -3,10 +3,10 @@ export {
   durationText,
   isLogPending,
   logStatusText,
-} from '../../shared/ui/log-status';
+} from '../../ui/parts/log-status';
 import type { UnitSystem } from '@shared/contracts/preferences';
 import type { RevisionStatus, RevisionSummary, VeTableResource } from '@shared/contracts/tables';
-import { formatQuantity } from '../../shared/units/format-quantity';
+import { formatQuantity } from '../../ui/units/format-quantity';
 
 /** Display names of a revision's review states. */
 export const REVISION_STATUS_LABELS: Readonly<Record<RevisionStatus, string>> = {

@@ -19,7 +19,7 @@ import type { Fuel } from '@shared/units';
 import { apiErrorMessage } from '../../core/api/api-error';
 import { VehiclesApi } from '../../core/api/vehicles-api';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
-import { rangeText } from '../../shared/units/display-range';
+import { rangeText } from '../../ui/units/display-range';
 import {
   DEFAULT_FUEL_SAFETY_VALUES,
   FUEL_OPTIONS,

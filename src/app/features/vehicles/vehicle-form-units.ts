@@ -5,8 +5,8 @@
  */
 import type { UnitSystem } from '@shared/contracts/preferences';
 import type { Fuel } from '@shared/units';
-import { displayRange } from '../../shared/units/display-range';
-import { type Quantity, fromDisplay, toDisplay } from '../../shared/units/display-units';
+import { displayRange } from '../../ui/units/display-range';
+import { type Quantity, fromDisplay, toDisplay } from '../../ui/units/display-units';
 import { type FieldLimit, VEHICLE_LIMITS } from './vehicle-form';
 
 /** The form fields that hold a measured quantity, and which quantity each is. */

@@ -16,7 +16,7 @@ import { TablesApi } from '../../core/api/tables-api';
 import { VehiclesApi } from '../../core/api/vehicles-api';
 import { Session } from '../../core/auth/session';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
-import { QuantityPipe } from '../../shared/units/quantity-pipe';
+import { QuantityPipe } from '../../ui/units/quantity-pipe';
 import { VehicleDialog, type VehicleDialogData } from './vehicle-dialog';
 import { FUEL_LABELS } from './vehicle-form';
 import { VehicleLogs } from './vehicle-logs';

@@ -1,7 +1,7 @@
 import type { UnitSystem } from '@shared/contracts/preferences';
 import type { Vehicle } from '@shared/contracts/vehicles';
 import { roadSpeedKph } from '@shared/physics/road-speed';
-import { formatQuantity } from '../../shared/units/format-quantity';
+import { formatQuantity } from '../../ui/units/format-quantity';
 import { FUEL_LABELS } from './vehicle-form';
 
 /**

@@ -25,7 +25,7 @@ import { apiErrorMessage } from '../../core/api/api-error';
 import { VehiclesApi } from '../../core/api/vehicles-api';
 import { Session } from '../../core/auth/session';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
-import { textForRoles } from '../../shared/ui/role-text';
+import { textForRoles } from '../../ui/parts/role-text';
 import { VehicleDialog, type VehicleDialogData } from './vehicle-dialog';
 import {
   INITIAL_LIST_STATE,

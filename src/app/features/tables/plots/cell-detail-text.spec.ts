@@ -1,5 +1,5 @@
 import type { AnalysisCell, AnalysisResource } from '../../../core/api/analyses-api';
-import type { PreviewResult } from '../proposal-preview-compute';
+import type { PreviewResult } from '../preview/proposal-preview-compute';
 import { type CellDetailInput, cellDetail, physicsAt } from './cell-detail-text';
 
 const ENGINE = {

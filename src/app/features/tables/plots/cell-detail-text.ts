@@ -7,9 +7,9 @@ import type { Vehicle } from '@shared/contracts/vehicles';
 import type { MixtureDisplay } from '@shared/contracts/preferences';
 import { type DutyLevel, assumedPowerLambda, cellPhysics } from '@shared/physics';
 import type { AnalysisResource, LeanFlag } from '../../../core/api/analyses-api';
-import { LEAN_SEVERITY } from '../analysis-text';
-import { ORIGIN_LABEL } from '../overlays';
-import type { PreviewResult } from '../proposal-preview-compute';
+import { LEAN_SEVERITY } from '../analysis/analysis-text';
+import { ORIGIN_LABEL } from '../grid/overlays';
+import type { PreviewResult } from '../preview/proposal-preview-compute';
 import { type CellRef, NO_FIGURE, grouped, lambdaErrorText, signed } from './plot-format';
 
 /** Intake air temperature the physics assumes, °C: the ECU's own air charge is not logged here. */

@@ -3,7 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatCardModule } from '@angular/material/card';
 import type { Vehicle } from '@shared/contracts/vehicles';
 import type { AnalysisResource } from '../../../core/api/analyses-api';
-import type { PreviewResult } from '../proposal-preview-compute';
+import type { PreviewResult } from '../preview/proposal-preview-compute';
 import { cellDetail } from './cell-detail-text';
 import type { CellRef } from './plot-format';
 

@@ -1,6 +1,6 @@
 /**
  * The colours of a chart's frame (text, axes, grid lines) in the page's light or dark scheme.
- * The data colours come from our OKLab scales (shared/ui/colour-scale) in both schemes; only the
+ * The data colours come from our OKLab scales (ui/parts/colour-scale) in both schemes; only the
  * frame follows the scheme, read from the Material system tokens so charts sit on the page like
  * the grid does.
  */

@@ -1,4 +1,4 @@
-import { SEQUENTIAL_STOPS, colourAt } from '../../../shared/ui/colour-scale';
+import { SEQUENTIAL_STOPS, colourAt } from '../../../ui/parts/colour-scale';
 import { FALLBACK_CHART_THEMES } from './chart-theme';
 import { type CurvesInput, curvesOption, rowColour } from './curves-option';
 

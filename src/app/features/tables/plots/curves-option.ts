@@ -12,7 +12,7 @@ import type {
 } from 'echarts/components';
 import type { ComposeOption } from 'echarts/core';
 import type { UnitSystem } from '@shared/contracts/preferences';
-import { SEQUENTIAL_STOPS, colourAt } from '../../../shared/ui/colour-scale';
+import { SEQUENTIAL_STOPS, colourAt } from '../../../ui/parts/colour-scale';
 import type { ChartTheme } from './chart-theme';
 import { type CellRef, mapScale } from './plot-format';
 

@@ -4,9 +4,9 @@ import {
   SEQUENTIAL_STOPS,
   colourAt,
   readableTextColour,
-} from '../../../shared/ui/colour-scale';
-import { overlayView } from '../overlays';
-import type { PreviewResult } from '../proposal-preview-compute';
+} from '../../../ui/parts/colour-scale';
+import { overlayView } from '../grid/overlays';
+import type { PreviewResult } from '../preview/proposal-preview-compute';
 import { FALLBACK_CHART_THEMES } from './chart-theme';
 import {
   type HeatLayer,

@@ -1,5 +1,5 @@
-import { type LegendView, ORIGIN_LABEL } from '../overlays';
-import type { CellOrigin, PreviewResult } from '../proposal-preview-compute';
+import { type LegendView, ORIGIN_LABEL } from '../grid/overlays';
+import type { CellOrigin, PreviewResult } from '../preview/proposal-preview-compute';
 /**
  * The table as an ECharts heat map: RPM across, MAP up, every cell coloured on our OKLab scales
  * (sequential for VE and proposal, diverging around zero for change and lambda error) and
@@ -20,7 +20,7 @@ import {
   colourAt,
   gradientCss,
   readableTextColour,
-} from '../../../shared/ui/colour-scale';
+} from '../../../ui/parts/colour-scale';
 import type { ChartTheme } from './chart-theme';
 import {
   type CellRef,

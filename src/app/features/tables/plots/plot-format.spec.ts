@@ -1,4 +1,4 @@
-import { DIVERGING_STOPS, SEQUENTIAL_STOPS } from '../../../shared/ui/colour-scale';
+import { DIVERGING_STOPS, SEQUENTIAL_STOPS } from '../../../ui/parts/colour-scale';
 import { grouped, lambdaErrorText, nearestCell, sampleStops, signed } from './plot-format';
 
 describe('plot format', () => {

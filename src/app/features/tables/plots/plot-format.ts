@@ -4,9 +4,9 @@
  * stops for ECharts.
  */
 import type { UnitSystem } from '@shared/contracts/preferences';
-import { colourAt, type ColourStop } from '../../../shared/ui/colour-scale';
-import { fromDisplay, toDisplay, unitLabel } from '../../../shared/units/display-units';
-import { formatQuantity } from '../../../shared/units/format-quantity';
+import { colourAt, type ColourStop } from '../../../ui/parts/colour-scale';
+import { fromDisplay, toDisplay, unitLabel } from '../../../ui/units/display-units';
+import { formatQuantity } from '../../../ui/units/format-quantity';
 
 /** Lambda error and change at or beyond this many percent take the full hue (as the grid). */
 export const DIVERGING_LIMIT_PCT = 10;

@@ -1,5 +1,5 @@
 import type { AnalysisSamples } from '../../../core/api/analyses-api';
-import { divergingColour } from '../../../shared/ui/colour-scale';
+import { divergingColour } from '../../../ui/parts/colour-scale';
 import { FALLBACK_CHART_THEMES } from './chart-theme';
 import {
   DOWN_TRIANGLE,

@@ -14,7 +14,7 @@ import type {
 import type { ComposeOption } from 'echarts/core';
 import type { UnitSystem } from '@shared/contracts/preferences';
 import type { AnalysisSamples } from '../../../core/api/analyses-api';
-import { DIVERGING_STOPS, divergingColour, gradientCss } from '../../../shared/ui/colour-scale';
+import { DIVERGING_STOPS, divergingColour, gradientCss } from '../../../ui/parts/colour-scale';
 import type { ChartTheme } from './chart-theme';
 import type { PlotLegend } from './heat-map-option';
 import { DIVERGING_LIMIT_PCT, MINUS, grouped, lambdaErrorText, mapScale } from './plot-format';

@@ -18,7 +18,7 @@ import type {
 } from '../../../core/api/analyses-api';
 import { noAnimations } from '../../../../testing/harness-helpers';
 import { ASSUMED_GUARD } from '../../../../testing/table-fixtures';
-import type { PreviewResult } from '../proposal-preview-compute';
+import type { PreviewResult } from '../preview/proposal-preview-compute';
 import type { CellRef } from './plot-format';
 import { WorkspacePlots } from './workspace-plots';
 

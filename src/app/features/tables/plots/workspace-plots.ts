@@ -22,14 +22,14 @@ import { NgxEchartsDirective } from 'ngx-echarts';
 import { AnalysesApi, type AnalysisResource } from '../../../core/api/analyses-api';
 import { apiErrorMessage } from '../../../core/api/api-error';
 import { ThemePreference } from '../../../core/theme/theme-preference';
-import { provideCharts } from '../../../shared/charts/provide-charts';
+import { provideCharts } from '../../../ui/charts/provide-charts';
 import { CellDetail } from './cell-detail';
 import { chartTheme, schemeIsDark } from './chart-theme';
 import { curvesOption } from './curves-option';
 import { HEAT_LAYERS, type HeatLayer, heatLegend, heatMapOption } from './heat-map-option';
 import { type CellRef, mapScale, nearestCell } from './plot-format';
-import { ColourLegend } from '../colour-legend';
-import type { PreviewResult } from '../proposal-preview-compute';
+import { ColourLegend } from '../grid/colour-legend';
+import type { PreviewResult } from '../preview/proposal-preview-compute';
 import { type SampleDatum, samplesCaption, samplesLegend, scatterOption } from './scatter-option';
 
 /** The tabs, in order. */

@@ -2,8 +2,8 @@ import type { HarnessLoader } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
-import type { AnalysisSummary } from '../../core/api/analyses-api';
-import { noAnimations } from '../../../testing/harness-helpers';
+import type { AnalysisSummary } from '../../../core/api/analyses-api';
+import { noAnimations } from '../../../../testing/harness-helpers';
 import { AnalysisHistory, analysisLine } from './analysis-history';
 
 const NEWER: AnalysisSummary = {

@@ -1,6 +1,6 @@
 import type { LogResource } from '@shared/contracts/logs';
-import type { LeanFlag, LogFilterReport } from '../../core/api/analyses-api';
-import { ASSUMED_GUARD } from '../../../testing/table-fixtures';
+import type { LeanFlag, LogFilterReport } from '../../../core/api/analyses-api';
+import { ASSUMED_GUARD } from '../../../../testing/table-fixtures';
 import {
   LEAN_SEVERITY,
   LEAN_WORDS_EXPLAINED,
@@ -16,7 +16,7 @@ import {
   previewSummaryLine,
   watchLine,
 } from './analysis-text';
-import type { PreviewSummary } from './proposal-preview-compute';
+import type { PreviewSummary } from '../preview/proposal-preview-compute';
 
 const REPORT: LogFilterReport = {
   logId: 'l1',

@@ -4,7 +4,7 @@ import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatMenuHarness } from '@angular/material/menu/testing';
-import { noAnimations } from '../../../testing/harness-helpers';
+import { noAnimations } from '../../../../testing/harness-helpers';
 import type { CellOperation } from './cell-operations';
 import { CellOpsBar } from './cell-ops-bar';
 

@@ -1,6 +1,6 @@
-import type { AnalysisResource, LeanFlag } from '../../core/api/analyses-api';
-import { LEAN_SEVERITY } from './analysis-text';
-import type { CellOrigin, PreviewResult } from './proposal-preview-compute';
+import type { AnalysisResource, LeanFlag } from '../../../core/api/analyses-api';
+import { LEAN_SEVERITY } from '../analysis/analysis-text';
+import type { CellOrigin, PreviewResult } from '../preview/proposal-preview-compute';
 import {
   DIVERGING_STOPS,
   SEQUENTIAL_STOPS,
@@ -8,7 +8,7 @@ import {
   gradientCss,
   readableTextColour,
   sequentialColour,
-} from '../../shared/ui/colour-scale';
+} from '../../../ui/parts/colour-scale';
 
 /** What the grid's cells show. */
 export type OverlayKind =

@@ -5,9 +5,9 @@ import type {
   LeanFlag,
   LeanSeverity,
   LogFilterReport,
-} from '../../core/api/analyses-api';
-import { formatQuantity } from '../../shared/units/format-quantity';
-import type { OriginCounts, PreviewSummary } from './proposal-preview-compute';
+} from '../../../core/api/analyses-api';
+import { formatQuantity } from '../../../ui/units/format-quantity';
+import type { OriginCounts, PreviewSummary } from '../preview/proposal-preview-compute';
 
 /** The caution shown with every lean-under-load flag. */
 export const LEAN_CAUTION =

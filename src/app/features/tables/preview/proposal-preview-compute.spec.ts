@@ -8,7 +8,7 @@ import {
   cellResults,
   storeAnalysis,
   storedEvidence,
-} from '../../../../server/services/analysis-json';
+} from '../../../../../server/services/analysis-json';
 import {
   type CellRef,
   type PreviewApplyOptions,
@@ -20,7 +20,7 @@ import {
   roundVe,
   summarisePreview,
 } from './proposal-preview-compute';
-import { applySettingsOf } from './analysis-apply-model';
+import { applySettingsOf } from '../analysis/analysis-apply-model';
 
 describe('cellMask', () => {
   it.each([

@@ -1,7 +1,11 @@
 import type { AnalysisSettingsBody, ApplyAnalysisRequest } from '@shared/contracts/analyses';
 import { optionalNumber } from './analysis-setting-ranges';
 import { CORE_DEFAULTS } from './analysis-settings-model';
-import type { CellRef, PreviewAnalysisSettings, PreviewGuard } from './proposal-preview-compute';
+import type {
+  CellRef,
+  PreviewAnalysisSettings,
+  PreviewGuard,
+} from '../preview/proposal-preview-compute';
 
 /**
  * The settings an analysis was run with, read defensively from the resource (the server sends

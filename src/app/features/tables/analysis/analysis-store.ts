@@ -12,8 +12,8 @@ import type { AnalysisSummary, ApplyAnalysisRequest } from '@shared/contracts/an
 import type { Revision } from '@shared/contracts/tables';
 import type { LoadGuard } from '@shared/correct/load-guard';
 import { map, of, switchMap } from 'rxjs';
-import { AnalysesApi, type AnalysisResource } from '../../core/api/analyses-api';
-import { TablesApi } from '../../core/api/tables-api';
+import { AnalysesApi, type AnalysisResource } from '../../../core/api/analyses-api';
+import { TablesApi } from '../../../core/api/tables-api';
 import {
   type ApplyValue,
   previewSettingsOf,
@@ -21,9 +21,13 @@ import {
   toApplyBody,
 } from './analysis-apply-model';
 import type { AnalyseRequest } from './analysis-requests';
-import { type PreviewInput, type PreviewResult, loadGuardOf } from './proposal-preview-compute';
-import { ProposalPreview } from './proposal-preview';
-import { TableStore } from './table-store';
+import {
+  type PreviewInput,
+  type PreviewResult,
+  loadGuardOf,
+} from '../preview/proposal-preview-compute';
+import { ProposalPreview } from '../preview/proposal-preview';
+import { TableStore } from '../table-store';
 
 /** The analysis shown and what belongs to it. */
 interface Shown {

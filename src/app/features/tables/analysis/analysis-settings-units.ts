@@ -5,9 +5,9 @@
  * as `vehicle-form-units.ts` does for the vehicle form: an untouched field goes back exactly.
  */
 import type { UnitSystem } from '@shared/contracts/preferences';
-import { displayRange } from '../../shared/units/display-range';
-import { type Quantity, fromDisplay, toDisplay, unitLabel } from '../../shared/units/display-units';
-import { QUANTITY_DIGITS } from '../../shared/units/format-quantity';
+import { displayRange } from '../../../ui/units/display-range';
+import { type Quantity, fromDisplay, toDisplay, unitLabel } from '../../../ui/units/display-units';
+import { QUANTITY_DIGITS } from '../../../ui/units/format-quantity';
 import {
   type AnalysisSettingKey,
   SETTING_RANGES,

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { LeanFlag } from '../../core/api/analyses-api';
+import type { LeanFlag } from '../../../core/api/analyses-api';
 import {
   LEAN_CAUTION,
   LEAN_SEVERITY,

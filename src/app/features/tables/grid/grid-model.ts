@@ -1,7 +1,7 @@
 import type { UnitSystem } from '@shared/contracts/preferences';
 import type { ColDef, ValueSetterParams } from 'ag-grid-community';
-import { unitLabel } from '../../shared/units/display-units';
-import { formatQuantity } from '../../shared/units/format-quantity';
+import { unitLabel } from '../../../ui/units/display-units';
+import { formatQuantity } from '../../../ui/units/format-quantity';
 import { type CellBounds, isInBounds, selectionEdges } from './cell-range';
 import type { CellView } from './overlays';
 

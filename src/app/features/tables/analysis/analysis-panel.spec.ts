@@ -11,11 +11,11 @@ import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 import { MatSliderHarness } from '@angular/material/slider/testing';
 import { provideRouter } from '@angular/router';
 import type { LogResource } from '@shared/contracts/logs';
-import { fillField, noAnimations } from '../../../testing/harness-helpers';
-import { ASSUMED_GUARD, SMALL_TABLE, leanRichAnalysis } from '../../../testing/table-fixtures';
+import { fillField, noAnimations } from '../../../../testing/harness-helpers';
+import { ASSUMED_GUARD, SMALL_TABLE, leanRichAnalysis } from '../../../../testing/table-fixtures';
 import { AnalysisPanel, type AnalyseRequest, type ApplyRequest } from './analysis-panel';
 import type { ApplyValue } from './analysis-apply-model';
-import { type PreviewResult, computeProposalPreview } from './proposal-preview-compute';
+import { type PreviewResult, computeProposalPreview } from '../preview/proposal-preview-compute';
 
 const LOGS = [
   { id: 'log-1', fileName: 'pull-1.csv', kind: 'dyno', durationS: 300, sampleCount: 6000 },

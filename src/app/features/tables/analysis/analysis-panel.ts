@@ -24,8 +24,8 @@ import type { LogResource } from '@shared/contracts/logs';
 import type { UnitSystem } from '@shared/contracts/preferences';
 import { map } from 'rxjs';
 import { STANDARD_BARO_KPA } from '@shared/correct/load-guard';
-import type { AnalysisResource } from '../../core/api/analyses-api';
-import { formatQuantity } from '../../shared/units/format-quantity';
+import type { AnalysisResource } from '../../../core/api/analyses-api';
+import { formatQuantity } from '../../../ui/units/format-quantity';
 import {
   type ApplyValue,
   defaultApplyValue,
@@ -56,8 +56,8 @@ import {
   type PreviewResult,
   countOrigins,
   summarisePreview,
-} from './proposal-preview-compute';
-import type { TableBusy } from './table-store';
+} from '../preview/proposal-preview-compute';
+import type { TableBusy } from '../table-store';
 
 import type { AnalyseRequest, ApplyRequest } from './analysis-requests';
 

@@ -10,12 +10,12 @@ import {
   revisionFixture,
   SMALL_TABLE,
   tableFixture,
-} from '../../../testing/table-fixtures';
+} from '../../../../testing/table-fixtures';
 import { type ApplyValue, defaultApplyValue } from './analysis-apply-model';
 import { AnalysisStore } from './analysis-store';
-import { PREVIEW_DEBOUNCE_MS, ProposalPreview } from './proposal-preview';
-import { computeProposalPreview } from './proposal-preview-compute';
-import { TableStore } from './table-store';
+import { PREVIEW_DEBOUNCE_MS, ProposalPreview } from '../preview/proposal-preview';
+import { computeProposalPreview } from '../preview/proposal-preview-compute';
+import { TableStore } from '../table-store';
 
 const TABLE = tableFixture(SMALL_TABLE.rpmAxis, SMALL_TABLE.mapAxisKpa);
 const REVISION = revisionFixture(SMALL_TABLE.values);

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
-import type { AnalysisSummary } from '../../core/api/analyses-api';
+import type { AnalysisSummary } from '../../../core/api/analyses-api';
 
 /** How many of a thing, with the noun in singular or plural: "1 log", "3 logs". */
 function count(n: number, singular: string, plural = `${singular}s`): string {

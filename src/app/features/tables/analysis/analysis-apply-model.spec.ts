@@ -11,7 +11,7 @@ import {
   toApplyBody,
 } from './analysis-apply-model';
 import { defaultSettingsValue, toSettingsBody } from './analysis-settings-model';
-import { loadGuardOf } from './proposal-preview-compute';
+import { loadGuardOf } from '../preview/proposal-preview-compute';
 
 describe('settingsOfAnalysis and applySettingsOf', () => {
   it.each<[string, object, AnalysisSettingsBody]>([

@@ -6,7 +6,7 @@ import { MatExpansionPanelHarness } from '@angular/material/expansion/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
-import { fillField, noAnimations } from '../../../testing/harness-helpers';
+import { fillField, noAnimations } from '../../../../testing/harness-helpers';
 import { AnalysisSettingsForm, isExpressionError } from './analysis-settings-form';
 import { defaultSettingsValue, toSettingsBody } from './analysis-settings-model';
 

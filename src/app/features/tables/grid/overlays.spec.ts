@@ -1,8 +1,8 @@
-import { ASSUMED_GUARD } from '../../../testing/table-fixtures';
-import type { AnalysisCell, AnalysisResource } from '../../core/api/analyses-api';
-import { TEXT_ON_DARK, TEXT_ON_LIGHT } from '../../shared/ui/colour-scale';
+import { ASSUMED_GUARD } from '../../../../testing/table-fixtures';
+import type { AnalysisCell, AnalysisResource } from '../../../core/api/analyses-api';
+import { TEXT_ON_DARK, TEXT_ON_LIGHT } from '../../../ui/parts/colour-scale';
 import { ORIGIN_MARKS, overlayView, signedFigure, type OverlayKind } from './overlays';
-import type { PreviewResult } from './proposal-preview-compute';
+import type { PreviewResult } from '../preview/proposal-preview-compute';
 
 const VALUES = [
   [50, 60],
