@@ -1,11 +1,15 @@
 import { and, desc, eq, inArray } from 'drizzle-orm';
 import { logChannels, logs, vehicles, type LogRow } from '../../db/schema';
-import type {
-  LogError,
-  LogKind,
-  LogResource,
-  LogStatus,
-  ParseReport,
+import {
+  columnMappingSchema,
+  logErrorSchema,
+  logSchema,
+  parseReportSchema,
+  type LogError,
+  type LogKind,
+  type LogResource,
+  type LogStatus,
+  type ParseReport,
 } from '../../shared/contracts/logs';
 import type { ColumnMapping } from '../../shared/import';
 import type { Executor } from '../db';
@@ -15,8 +19,8 @@ function asJson(value: object): Record<string, unknown> {
   return JSON.parse(JSON.stringify(value)) as Record<string, unknown>;
 }
 
-// The jsonb columns are typed loosely in the schema; only this service writes them, from
-// validated values of these types, so reading them back as such is safe.
+// The jsonb columns are typed loosely in the schema: they are parsed once here, by the same
+// contracts the API answers with, so a row that drifted fails loudly instead of travelling on.
 function toLog(row: LogRow): LogResource {
   return {
     id: row.id,
@@ -29,10 +33,11 @@ function toLog(row: LogRow): LogResource {
     progress: row.progress,
     sampleCount: row.sampleCount,
     durationS: row.durationS,
-    mapping: row.mapping as LogResource['mapping'],
-    error: row.error as LogError | null,
-    channelSummary: row.channelSummary as LogResource['channelSummary'],
-    parseReport: row.parseReport as ParseReport | null,
+    mapping: columnMappingSchema.parse(row.mapping),
+    error: row.error === null ? null : logErrorSchema.parse(row.error),
+    channelSummary:
+      row.channelSummary === null ? null : logSchema.shape.channelSummary.parse(row.channelSummary),
+    parseReport: row.parseReport === null ? null : parseReportSchema.parse(row.parseReport),
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
   };
@@ -148,8 +153,8 @@ export async function findLogToParse(
   return {
     status: row.status,
     rawPath: row.rawPath,
-    mapping: row.mapping as unknown as ColumnMapping,
-    parseReport: (row.parseReport ?? { mappingSource: 'given' }) as ParseReport,
+    mapping: columnMappingSchema.parse(row.mapping),
+    parseReport: parseReportSchema.parse(row.parseReport ?? { mappingSource: 'given' }),
     stoichAfr: row.stoichAfr,
   };
 }
