@@ -1,4 +1,4 @@
-import { AREAS, areasFor, canEnterArea, hasAnyRole } from './access';
+import { AREAS, areasFor, canEnterArea, canReadArea, hasAnyRole } from './access';
 
 describe('areasFor', () => {
   it.each([
@@ -37,5 +37,18 @@ describe('hasAnyRole', () => {
     expect(hasAnyRole(['tuner', 'reviewer'], ['reviewer'])).toBe(true);
     expect(hasAnyRole(['operator'], ['tuner', 'admin'])).toBe(false);
     expect(hasAnyRole(['operator'], [])).toBe(false);
+  });
+});
+
+describe('canReadArea', () => {
+  it('When an operator opens the tables area, then they may read it without working there', () => {
+    expect(canReadArea(['operator'], 'tables')).toBe(true);
+    expect(canEnterArea(['operator'], 'tables')).toBe(false);
+  });
+
+  it('When a role neither works in nor reads an area, then it may not open it', () => {
+    expect(canReadArea(['admin'], 'tables')).toBe(false);
+    expect(canReadArea(['operator'], 'team')).toBe(false);
+    expect(canReadArea(['reviewer'], 'tables')).toBe(true);
   });
 });

@@ -25,6 +25,20 @@ export function canEnterArea(roles: readonly Role[], area: Area): boolean {
   return AREA_ROLES[area].some((role) => roles.includes(role));
 }
 
+/**
+ * Roles that may open an area to read it without working there. An operator reads a table's
+ * coverage and lean flags to know what to log next, so the tables area opens read-only to them;
+ * the navigation still lists only the areas of {@link AREA_ROLES}.
+ */
+export const AREA_READERS: Readonly<Partial<Record<Area, readonly Role[]>>> = {
+  tables: ['operator'],
+};
+
+/** Whether a member holding `roles` may open `area`, to work there or only to read it. */
+export function canReadArea(roles: readonly Role[], area: Area): boolean {
+  return canEnterArea(roles, area) || hasAnyRole(roles, AREA_READERS[area] ?? []);
+}
+
 /** Whether a member holding `roles` holds at least one of `allowed`. */
 export function hasAnyRole(roles: readonly Role[], allowed: readonly Role[]): boolean {
   return allowed.some((role) => roles.includes(role));

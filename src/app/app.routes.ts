@@ -1,5 +1,5 @@
 import type { Routes } from '@angular/router';
-import { redirectHome, requireArea, requireSignedIn } from './core/auth/route-access';
+import { mayOpenArea, redirectHome, requireArea, requireSignedIn } from './core/auth/route-access';
 
 /** Top-level routes: public pages, then the signed-in shell with one lazy child per area. */
 export const routes: Routes = [
@@ -30,9 +30,22 @@ export const routes: Routes = [
         loadChildren: () => import('./features/logs/logs.routes'),
       },
       {
+        // Tuners and reviewers work here, operators read (AREA_READERS); anyone else is told so
+        // at the same address by the route below instead of being redirected silently.
         path: 'tables',
-        canActivate: [() => requireArea('tables')],
+        canMatch: [() => mayOpenArea('tables')],
         loadChildren: () => import('./features/tables/tables.routes'),
+      },
+      {
+        path: 'tables',
+        children: [
+          {
+            path: '**',
+            title: 'No access · Cellsmith',
+            data: { area: 'tables' },
+            loadComponent: () => import('./features/no-access/no-access-page'),
+          },
+        ],
       },
       {
         path: 'plans',

@@ -5,7 +5,7 @@ import { Router, UrlTree, provideRouter } from '@angular/router';
 import { areasFor } from '@shared/auth/access';
 import type { SessionUser } from '@shared/contracts/auth';
 import type { Role } from '@shared/contracts/roles';
-import { redirectHome, requireArea, requireSignedIn } from './route-access';
+import { mayOpenArea, redirectHome, requireArea, requireSignedIn } from './route-access';
 
 /** A signed-in member of the test shop holding `roles`. */
 function userWith(roles: Role[]): SessionUser {
@@ -36,9 +36,9 @@ describe('route access', () => {
    * `user` (or a 401 for nobody), and returns the guard's result with any URL serialised.
    */
   async function runGuard(
-    guard: () => Promise<true | UrlTree>,
+    guard: () => Promise<boolean | UrlTree>,
     user: SessionUser | null,
-  ): Promise<true | string> {
+  ): Promise<boolean | string> {
     const result = TestBed.runInInjectionContext(guard);
     const request = http.expectOne('/api/auth/me');
     if (user === null) {
@@ -50,7 +50,7 @@ describe('route access', () => {
       request.flush({ user });
     }
     const outcome = await result;
-    return outcome === true ? true : TestBed.inject(Router).serializeUrl(outcome);
+    return typeof outcome === 'boolean' ? outcome : TestBed.inject(Router).serializeUrl(outcome);
   }
 
   describe('requireSignedIn', () => {
@@ -78,6 +78,20 @@ describe('route access', () => {
 
     it('when nobody is signed in, then it sends them to sign in', async () => {
       expect(await runGuard(() => requireArea('plans'), null)).toBe('/sign-in');
+    });
+  });
+
+  describe('mayOpenArea', () => {
+    it('when an operator opens a table, then the tables area matches (read-only)', async () => {
+      expect(await runGuard(() => mayOpenArea('tables'), userWith(['operator']))).toBe(true);
+    });
+
+    it('when an admin opens a table, then the area does not match and no redirect is made', async () => {
+      expect(await runGuard(() => mayOpenArea('tables'), userWith(['admin']))).toBe(false);
+    });
+
+    it('when nobody is signed in, then the area does not match', async () => {
+      expect(await runGuard(() => mayOpenArea('tables'), null)).toBe(false);
     });
   });
 

@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import { Router, type UrlTree } from '@angular/router';
-import { type Area, canEnterArea } from '@shared/auth/access';
+import { type Area, canEnterArea, canReadArea } from '@shared/auth/access';
 import { Session } from './session';
 
 /**
@@ -24,6 +24,17 @@ export async function requireArea(area: Area): Promise<true | UrlTree> {
   const user = await session.whenLoaded();
   if (user !== null && canEnterArea(user.roles, area)) return true;
   return router.parseUrl(session.homePath());
+}
+
+/**
+ * `canMatch` body for an area that says so when a role cannot open it: true when the user may
+ * open `area` (to work or to read), false otherwise, so the router falls through to the route
+ * that explains the refusal at the same address instead of redirecting silently. Nobody signed
+ * in also falls through; the shell's own guard then sends them to sign in.
+ */
+export async function mayOpenArea(area: Area): Promise<boolean> {
+  const user = await inject(Session).whenLoaded();
+  return user !== null && canReadArea(user.roles, area);
 }
 
 /** Guard body for the empty path: redirects to the user's first area. */

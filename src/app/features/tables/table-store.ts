@@ -43,6 +43,9 @@ export { locksStorageKey } from './grid/table-locks';
 /** What the workspace is waiting for, if anything. */
 export type TableBusy = 'loading' | 'saving' | 'analysing' | 'applying' | null;
 
+/** Why an edit is refused while a revision is being saved, applied or loaded. */
+const WAIT_TEXT = 'Wait until the revision is saved and loaded, then edit.';
+
 /** Everything loaded for one table. */
 interface Loaded {
   table: VeTableResource;
@@ -95,7 +98,9 @@ export class TableStore {
   /** Whether there is an undone edit to redo. */
   readonly canRedo = computed(() => this.editHistory().future.length > 0);
   /** What undo and redo would take back or put again ("Undo Scale +5 % (12 cells)"). */
-  readonly historyLabels = computed(() => historyActionLabels(this.editHistory()));
+  readonly historyLabels = computed(() =>
+    historyActionLabels(this.editHistory(), this.revision()?.number),
+  );
   /** The selected range, null when nothing is selected. */
   readonly selection = this.currentSelection.asReadonly();
   /** The selection normalised to rows r0..r1, columns c0..c1. */
@@ -112,10 +117,26 @@ export class TableStore {
   readonly locked = this.lockSet.asReadonly();
   /** The locked cells as `[row, col]`, row by row. */
   readonly lockedCells = computed(() => cellSetList(this.lockSet()));
-  /** Whether the values differ from the loaded revision. */
-  readonly isDirty = computed(() => {
+  /** The cells whose value differs from the loaded revision, as `[row, col]`, row by row. */
+  readonly unsavedCells = computed((): [number, number][] => {
     const saved = this.revision()?.values ?? [];
-    return this.editedValues().some((row, r) => row.some((v, c) => v !== saved[r]?.[c]));
+    const cells: [number, number][] = [];
+    this.editedValues().forEach((row, r) =>
+      row.forEach((v, c) => {
+        if (v !== saved[r]?.[c]) cells.push([r, c]);
+      }),
+    );
+    return cells;
+  });
+  /** Whether the values differ from the loaded revision. */
+  readonly isDirty = computed(() => this.unsavedCells().length > 0);
+  /**
+   * Whether the values may change now: not while loading, saving or applying, whose answer loads
+   * a new head revision and would drop an edit made meanwhile.
+   */
+  readonly acceptsEdits = computed(() => {
+    const busy = this.waitingFor();
+    return busy === null || busy === 'analysing';
   });
 
   /** Loads the table, its vehicle, revisions, the head revision's values and the logs. */
@@ -156,6 +177,7 @@ export class TableStore {
    * refused (the cell keeps its value).
    */
   edit(row: number, col: number, raw: unknown): string | null {
+    if (!this.acceptsEdits()) return WAIT_TEXT;
     if (this.lockSet().has(cellKey(row, col))) {
       const name = cellName(this.table()?.rpmAxis ?? [], this.table()?.mapAxisKpa ?? [], row, col);
       return `The ${name} is locked. Unlock it to edit.`;
@@ -171,6 +193,7 @@ export class TableStore {
    * the refusal (nothing pasted), how many locked cells were skipped, or null.
    */
   paste(text: string): string | null {
+    if (!this.acceptsEdits()) return WAIT_TEXT;
     const bounds = this.selectionBounds();
     if (!bounds) return 'Select the cell to paste at first.';
     const target = { values: this.editedValues(), bounds, locked: this.lockSet() };
@@ -187,6 +210,7 @@ export class TableStore {
    * held, or null.
    */
   operate(op: CellOperation, guard?: LoadGuard): string | null {
+    if (!this.acceptsEdits()) return WAIT_TEXT;
     const table = this.table();
     const bounds = this.selectionBounds();
     if (!table || !bounds) return 'Select the cells to change first.';
@@ -223,11 +247,13 @@ export class TableStore {
 
   /** Undoes the newest edit. */
   undo(): void {
+    if (!this.acceptsEdits()) return;
     this.step(undoEdit(this.editedValues(), this.editHistory()));
   }
 
   /** Redoes the edit undone last. */
   redo(): void {
+    if (!this.acceptsEdits()) return;
     this.step(redoEdit(this.editedValues(), this.editHistory()));
   }
 

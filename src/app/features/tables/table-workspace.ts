@@ -1,6 +1,7 @@
 import {
   ChangeDetectionStrategy,
   Component,
+  DestroyRef,
   computed,
   effect,
   inject,
@@ -12,6 +13,8 @@ import {
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatDialog } from '@angular/material/dialog';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -24,6 +27,7 @@ import { AnalysisHistory } from './analysis/analysis-history';
 import { AnalysisPanel, type ApplyRequest } from './analysis/analysis-panel';
 import { AnalysisStore } from './analysis/analysis-store';
 import type { CellOperation } from './grid/cell-operations';
+import { cellKey } from './grid/cell-range';
 import { CellOpsBar } from './grid/cell-ops-bar';
 import { ColourLegend } from './grid/colour-legend';
 import { historyKeyAction } from './grid/edit-history';
@@ -34,10 +38,20 @@ import { type CellEditRequest, TableGrid } from './grid/table-grid';
 import { WorkspacePlots } from './plots/workspace-plots';
 import { ProposalPreview } from './preview/proposal-preview';
 import { TableStore } from './table-store';
+import {
+  type ApplyEditsChoice,
+  type ApplyEditsData,
+  ApplyEditsDialog,
+} from './unsaved/apply-edits-dialog';
+import type { HoldsUnsavedEdits } from './unsaved/unsaved-edits-guard';
+import { warnBeforeUnload } from './unsaved/warn-before-unload';
 
 /**
  * The table workspace: the head revision's VE in an editable grid with undo/redo, overlays of
  * the latest analysis, the lean-under-load banner, saving as a revision, and the analysis panel.
+ * Tuners edit; other roles that open it (reviewers, operators) read: the grid, overlays, plots
+ * and earlier analyses, with no editing, saving, running or applying. Unsaved edits are never
+ * dropped silently: applying asks first, and so does leaving (route guard, `beforeunload`).
  */
 @Component({
   selector: 'app-table-workspace',
@@ -65,8 +79,10 @@ import { TableStore } from './table-store';
   styleUrl: './table-workspace.scss',
   host: { '(keydown)': 'onKeydown($event)' },
 })
-export class TableWorkspace {
+export class TableWorkspace implements HoldsUnsavedEdits {
   private readonly session = inject(Session);
+  private readonly dialog = inject(MatDialog);
+  private readonly destroyRef = inject(DestroyRef);
   private readonly notifier = inject(Notifier);
   private readonly preferences = inject(DisplayPreferences);
   /** The workspace's state: the table, its edits, the selection and the locks. */
@@ -118,8 +134,10 @@ export class TableWorkspace {
       preview: this.analysis.preview(),
     }),
   );
-  /** Whether values can be changed now: a tuner, looking at the VE. */
-  protected readonly canChangeValues = computed(() => this.canEdit() && this.overlay() === 've');
+  /** Whether values can be changed now: a tuner, looking at the VE, with no save under way. */
+  protected readonly canChangeValues = computed(
+    () => this.canEdit() && this.overlay() === 've' && this.store.acceptsEdits(),
+  );
   /**
    * Why the cell operations are unavailable beyond "nothing selected" (which the grid's own
    * line says; a hint appearing on the first click would shift the grid under the pointer).
@@ -138,6 +156,13 @@ export class TableWorkspace {
       const id = this.id();
       untracked(() => this.store.load(id));
     });
+    // Closing the tab or reloading with unsaved edits asks the browser's own question.
+    warnBeforeUnload(this.store.isDirty);
+  }
+
+  /** How many cells hold unsaved edits (the route guard asks before leaving when any do). */
+  unsavedCellCount(): number {
+    return this.store.unsavedCells().length;
   }
 
   /** Checks and applies a typed value; a refusal is told and the cell keeps its value. */
@@ -191,9 +216,34 @@ export class TableWorkspace {
     this.saveMessage.set('');
   }
 
-  /** Applies the analysis shown as a draft revision with the panel's whole body. */
+  /**
+   * Applies the analysis shown as a draft revision with the panel's whole body. With unsaved
+   * edits it asks first: save them and apply on top, discard them and apply to the analysed
+   * revision, or cancel.
+   */
   protected apply(request: ApplyRequest): void {
-    this.analysis.apply(request.body);
+    const edited = this.store.unsavedCells();
+    if (edited.length === 0) {
+      this.analysis.apply(request.body);
+      return;
+    }
+    const locked = this.store.locked();
+    const data: ApplyEditsData = {
+      editedCells: edited.length,
+      lockedEdited: edited.filter(([r, c]) => locked.has(cellKey(r, c))).length,
+      baseNumber: this.analysisBaseNumber(),
+    };
+    this.dialog
+      .open<ApplyEditsDialog, ApplyEditsData, ApplyEditsChoice | null>(ApplyEditsDialog, {
+        data,
+        autoFocus: 'dialog',
+      })
+      .afterClosed()
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe((choice) => {
+        if (choice === 'save-first') this.analysis.applyOnEdits(request.body);
+        else if (choice === 'discard') this.analysis.apply(request.body);
+      });
   }
 
   /** A cell picked in a plot becomes the grid's selection, so both show the same cell. */

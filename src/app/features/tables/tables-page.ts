@@ -134,6 +134,8 @@ export class TablesPage {
           'The VE tables of your vehicles, indexed by RPM and MAP. Open one to edit cells, run an analysis of the vehicle’s logs, read coverage and lambda error per cell, and apply the proposal as a draft revision.',
         reviewer:
           'The VE tables of the shop’s vehicles. Open one to read its newest revision cell by cell.',
+        operator:
+          'The VE tables of the shop’s vehicles, to read. Open one to see which cells the logs cover and where they ran lean, so the next session logs what is missing.',
       },
       'The VE tables of the shop’s vehicles and their revisions.',
     ),

@@ -1,6 +1,10 @@
 import type { Routes } from '@angular/router';
+import { unsavedEditsGuard } from './unsaved/unsaved-edits-guard';
 
-/** Routes of the tables area, lazy-loaded below `/tables`; the grid loads only with `:id`. */
+/**
+ * Routes of the tables area, lazy-loaded below `/tables`; the grid loads only with `:id`. The
+ * guard's dialog is small and eager here; the workspace itself stays lazy.
+ */
 const tablesRoutes: Routes = [
   {
     path: '',
@@ -11,6 +15,8 @@ const tablesRoutes: Routes = [
     path: ':id',
     title: 'Table · Cellsmith',
     loadComponent: () => import('./table-workspace'),
+    // Leaving with unsaved edits (the menu, a link, back) asks first.
+    canDeactivate: [unsavedEditsGuard],
   },
 ];
 

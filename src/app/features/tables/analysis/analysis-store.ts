@@ -11,7 +11,8 @@ import { rxResource } from '@angular/core/rxjs-interop';
 import type { AnalysisSummary, ApplyAnalysisRequest } from '@shared/contracts/analyses';
 import type { Revision } from '@shared/contracts/tables';
 import type { LoadGuard } from '@shared/correct/load-guard';
-import { map, of, switchMap } from 'rxjs';
+import { catchError, map, of, switchMap, throwError } from 'rxjs';
+import { apiErrorMessage } from '../../../core/api/api-error';
 import { AnalysesApi, type AnalysisResource } from '../../../core/api/analyses-api';
 import { TablesApi } from '../../../core/api/tables-api';
 import {
@@ -38,6 +39,9 @@ interface Shown {
   /** The server's refusal of the last run, null when it ran or none was run. */
   readonly error: string | null;
 }
+
+/** The message of the revision that keeps unsaved edits before an apply on top of them. */
+export const EDITS_BEFORE_APPLY_MESSAGE = 'Edits saved before applying an analysis';
 
 const NOTHING_SHOWN: Shown = { analysis: null, openedBaseValues: null, error: null };
 
@@ -237,6 +241,52 @@ export class AnalysisStore {
       'Applying failed.',
       (revision) =>
         this.tables.showNewRevision(revision, `Applied as draft revision ${revision.number}.`),
+    );
+  }
+
+  /**
+   * Applies on top of the grid's unsaved edits: saves them as a draft revision on the head, runs
+   * the analysis shown again (same logs, same settings) against that revision, and applies the
+   * new analysis with `body`. Locked cells thus keep the values the grid shows. When the save
+   * went through and a later step fails, the saved revision loads and the failure says the edits
+   * are kept in it: they are never dropped.
+   */
+  applyOnEdits(body: ApplyAnalysisRequest): void {
+    const table = this.tables.table();
+    const head = this.tables.revision();
+    const analysis = this.analysis();
+    if (!table || !head || !analysis || this.tables.busy()) return;
+    let saved: Revision | null = null;
+    const values = this.tables.values().map((row) => [...row]);
+    const save = { parentId: head.id, values, message: EDITS_BEFORE_APPLY_MESSAGE };
+    const request = this.tablesApi.createRevision(table.id, save).pipe(
+      switchMap((edits) => {
+        const run = { baseRevisionId: edits.id, logIds: [...analysis.logIds] };
+        return this.analysesApi.run(table.id, { ...run, settings: analysis.settings }).pipe(
+          switchMap((rerun) => this.analysesApi.apply(rerun.id, body)),
+          map((applied) => ({ edits, applied })),
+          catchError((error: unknown) => {
+            saved = edits;
+            const why = apiErrorMessage(error, 'the server did not answer.');
+            const text = `Your edits are saved as revision ${edits.number}; applying on top of them failed: ${why}`;
+            return throwError(() => new Error(text));
+          }),
+        );
+      }),
+    );
+    this.tables.perform(
+      'applying',
+      request,
+      'Saving the edits failed; nothing was applied.',
+      ({ edits, applied }) =>
+        this.tables.showNewRevision(
+          applied,
+          `Saved your edits as revision ${edits.number} and applied on top of them as draft ` +
+            `revision ${applied.number}.`,
+        ),
+      () => {
+        if (saved) this.tables.load(saved.tableId);
+      },
     );
   }
 }

@@ -105,6 +105,12 @@ describe('edit history', () => {
       redo: 'Redo (nothing to redo)',
     });
   });
+
+  it('When a new revision opened with no edits, then undo says so and names it', () => {
+    expect(historyActionLabels(EMPTY_HISTORY, 6).undo).toBe(
+      'Undo (no edits yet on revision 6; earlier revisions stay saved)',
+    );
+  });
 });
 
 describe('historyKeyAction', () => {

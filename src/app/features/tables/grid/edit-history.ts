@@ -147,12 +147,24 @@ export function batchLabel(batch: EditBatch): string {
   return `${batch.label} (${n} ${n === 1 ? 'cell' : 'cells'})`;
 }
 
-/** What the undo and redo buttons say: "Undo Scale +5 % (12 cells)", or the bare action. */
-export function historyActionLabels(history: EditHistory): { undo: string; redo: string } {
+/**
+ * What the undo and redo buttons say: "Undo Scale +5 % (12 cells)", or why there is nothing.
+ * The history covers the edits of the revision open (`revisionNumber`): a save or an apply loads
+ * a new revision and starts it afresh, so an empty undo says that in words rather than a bare
+ * "nothing to undo" that reads as if the apply itself were lost.
+ */
+export function historyActionLabels(
+  history: EditHistory,
+  revisionNumber?: number,
+): { undo: string; redo: string } {
   const undo = history.past.at(-1);
   const redo = history.future.at(-1);
+  const noEdits =
+    revisionNumber === undefined
+      ? 'Undo (nothing to undo)'
+      : `Undo (no edits yet on revision ${revisionNumber}; earlier revisions stay saved)`;
   return {
-    undo: undo ? `Undo ${batchLabel(undo)}` : 'Undo (nothing to undo)',
+    undo: undo ? `Undo ${batchLabel(undo)}` : noEdits,
     redo: redo ? `Redo ${batchLabel(redo)}` : 'Redo (nothing to redo)',
   };
 }
