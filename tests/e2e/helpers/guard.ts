@@ -2,7 +2,13 @@ import type { Page } from 'playwright-core';
 import { csvText, DEMO_HATCH, ecuVeTable, simulateSamples } from '../../../shared/sim';
 
 /** Calls the API with the page's session, echoing the XSRF cookie as the app does. */
-async function api<T>(page: Page, baseUrl: string, method: 'post', path: string, data: object) {
+export async function api<T>(
+  page: Page,
+  baseUrl: string,
+  method: 'post',
+  path: string,
+  data: object,
+) {
   const cookies = await page.context().cookies(baseUrl);
   const xsrf = decodeURIComponent(cookies.find((c) => c.name === 'XSRF-TOKEN')?.value ?? '');
   const res = await page.request[method](`${baseUrl}${path}`, {

@@ -4,6 +4,7 @@ import type { Observable } from 'rxjs';
 import type { ListResponse } from '@shared/contracts/errors';
 import type {
   CreateRevisionRequest,
+  CreateTableRequest,
   Revision,
   RevisionSummary,
   VeTableResource,
@@ -18,6 +19,14 @@ export class TablesApi {
   listForVehicle(vehicleId: string): Observable<ListResponse<VeTableResource>> {
     return this.http.get<ListResponse<VeTableResource>>(
       `/api/vehicles/${encodeURIComponent(vehicleId)}/tables`,
+    );
+  }
+
+  /** `POST /api/vehicles/:id/tables`: a new table whose first revision holds `values`. */
+  create(vehicleId: string, body: CreateTableRequest): Observable<VeTableResource> {
+    return this.http.post<VeTableResource>(
+      `/api/vehicles/${encodeURIComponent(vehicleId)}/tables`,
+      body,
     );
   }
 

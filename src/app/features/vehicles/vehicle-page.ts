@@ -5,9 +5,9 @@ import { MatCardModule } from '@angular/material/card';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { RouterLink } from '@angular/router';
-import { canEnterArea } from '@shared/auth/access';
-import type { RevisionSummary } from '@shared/contracts/tables';
+import { Router, RouterLink } from '@angular/router';
+import { canReadArea, hasAnyRole } from '@shared/auth/access';
+import type { RevisionSummary, VeTableResource } from '@shared/contracts/tables';
 import type { Vehicle } from '@shared/contracts/vehicles';
 import { forkJoin, map, of } from 'rxjs';
 import { apiErrorMessage, isHttpStatus } from '../../core/api/api-error';
@@ -19,6 +19,7 @@ import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { QuantityPipe } from '../../ui/units/quantity-pipe';
 import { VehicleDialog, type VehicleDialogData } from './vehicle-dialog';
 import { FUEL_LABELS } from './vehicle-form';
+import { NewTableDialog, type NewTableDialogData } from './new-table/new-table-dialog';
 import { VehicleLogs } from './vehicle-logs';
 import { canEditVehicles } from './vehicle-roles';
 import { topGearSpeedText } from './vehicle-summary';
@@ -50,6 +51,7 @@ export class VehiclePage {
   private readonly logsApi = inject(LogsApi);
   private readonly session = inject(Session);
   private readonly dialog = inject(MatDialog);
+  private readonly router = inject(Router);
   private readonly displayPreferences = inject(DisplayPreferences);
 
   /** The vehicle's id, from the route. */
@@ -116,9 +118,9 @@ export class VehiclePage {
   /** Whether the signed-in member may change the vehicle. */
   protected readonly canEdit = computed(() => canEditVehicles(this.session.user()?.roles ?? []));
 
-  /** Whether the member may open the table workspace. */
+  /** Whether the member may open the table workspace (operators read it). */
   protected readonly canOpenTables = computed(() =>
-    canEnterArea(this.session.user()?.roles ?? [], 'tables'),
+    canReadArea(this.session.user()?.roles ?? [], 'tables'),
   );
 
   /** Fuel names. */
@@ -140,6 +142,25 @@ export class VehiclePage {
       .afterClosed()
       .subscribe((saved) => {
         if (saved !== undefined) this.vehicle.set(saved);
+      });
+  }
+
+  /** Whether the user may add tables (the server lets tuners create them). */
+  protected readonly canAddTables = computed(() =>
+    hasAnyRole(this.session.user()?.roles ?? [], ['tuner']),
+  );
+
+  /** Opens the new-table dialog; a created table opens in the workspace. */
+  protected openNewTableDialog(vehicle: Vehicle): void {
+    this.dialog
+      .open<NewTableDialog, NewTableDialogData, VeTableResource>(NewTableDialog, {
+        data: { vehicleId: vehicle.id, vehicleLabel: vehicle.label },
+        autoFocus: 'first-tabbable',
+        maxWidth: '95vw',
+      })
+      .afterClosed()
+      .subscribe((table) => {
+        if (table !== undefined) void this.router.navigate(['/tables', table.id]);
       });
   }
 
