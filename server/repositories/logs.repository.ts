@@ -108,6 +108,37 @@ export async function findLog(
   return row ? toLog(row) : null;
 }
 
+/** Changes a log's kind and/or ECU revision; returns it, or null when it is not in the shop. */
+export async function updateLogFacts(
+  db: Executor,
+  shopId: string,
+  logId: string,
+  change: { kind?: LogKind; ecuRevisionId?: string | null },
+): Promise<LogResource | null> {
+  const [row] = await db
+    .update(logs)
+    .set({ ...change, updatedAt: new Date() })
+    .where(and(eq(logs.shopId, shopId), eq(logs.id, logId)))
+    .returning();
+  return row ? toLog(row) : null;
+}
+
+/**
+ * Deletes a log of a shop (its channels go with it) and returns where its raw file was, or null
+ * when it is not in the shop. Analyses keep their figures: they list log ids, not rows.
+ */
+export async function deleteLogRow(
+  db: Executor,
+  shopId: string,
+  logId: string,
+): Promise<{ rawPath: string } | null> {
+  const [row] = await db
+    .delete(logs)
+    .where(and(eq(logs.shopId, shopId), eq(logs.id, logId)))
+    .returning({ rawPath: logs.rawPath });
+  return row ?? null;
+}
+
 /** The logs of one vehicle of a shop, newest first. */
 export async function listLogsOfVehicle(
   db: Executor,

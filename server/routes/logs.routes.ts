@@ -5,6 +5,7 @@ import {
   logVehicleParamSchema,
   mappingPresetListQuerySchema,
   mappingPresetParamSchema,
+  updateLogRequestSchema,
   uploadLogFieldsSchema,
 } from '../../shared/contracts/logs';
 import type { AppContext } from '../context';
@@ -13,6 +14,7 @@ import { receiveLogUpload } from '../middleware/log-upload';
 import { handle } from '../middleware/validate';
 import { receivedFileOf } from '../services/log-storage.service';
 import { getLogSeries } from '../services/log-series';
+import { changeLog, deleteLog } from '../services/log-changes.service';
 import { uploadLog } from '../services/log-upload.service';
 import { getLog, listVehicleLogs, requireVehicle } from '../services/logs.service';
 import { getMappingPreset, listMappingPresets } from '../services/mapping-presets.service';
@@ -57,6 +59,26 @@ export function logRoutes(ctx: AppContext): Router {
     requireSignedIn,
     ...handle({ params: logIdParamSchema }, async ({ params }, req, res) => {
       res.json(await getLog(ctx.db, currentUser(req), params.id));
+    }),
+  );
+
+  router.patch(
+    '/logs/:id',
+    requireRoles('tuner', 'operator'),
+    ...handle(
+      { params: logIdParamSchema, body: updateLogRequestSchema },
+      async ({ params, body }, req, res) => {
+        res.json(await changeLog(ctx, currentUser(req), params.id, body));
+      },
+    ),
+  );
+
+  router.delete(
+    '/logs/:id',
+    requireRoles('tuner', 'admin'),
+    ...handle({ params: logIdParamSchema }, async ({ params }, req, res) => {
+      await deleteLog(ctx, currentUser(req), params.id);
+      res.status(204).end();
     }),
   );
 

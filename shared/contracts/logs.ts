@@ -222,6 +222,23 @@ export const logSchema = z.object({
 /** A log as the API returns it. */
 export type LogResource = z.infer<typeof logSchema>;
 
+/**
+ * Body of `PATCH /api/logs/:id`: what can be put right after an upload — the kind, and the
+ * revision its ECU ran (null: not known; the analysis then takes the base revision).
+ */
+export const updateLogRequestSchema = z
+  .object({
+    kind: z.enum(LOG_KINDS, { error: `kind must be one of ${LOG_KINDS.join(', ')}` }).optional(),
+    ecuRevisionId: z.uuid('ecuRevisionId must be a UUID').nullable().optional(),
+  })
+  .strict()
+  .refine((body) => body.kind !== undefined || body.ecuRevisionId !== undefined, {
+    message: 'give kind or ecuRevisionId',
+  });
+
+/** Body of `PATCH /api/logs/:id`. */
+export type UpdateLogRequest = z.infer<typeof updateLogRequestSchema>;
+
 /** The header signature of a mapping preset in a path (`/mapping-presets/:signature`). */
 export const mappingPresetParamSchema = z.object({
   signature: z
