@@ -12,6 +12,7 @@ import type {
   LogResource,
   LogSeries,
   MappingPreset,
+  UpdateLogRequest,
   UploadLogResponse,
 } from '@shared/contracts/logs';
 
@@ -56,6 +57,16 @@ export class LogsApi {
     return this.http.get<ListResponse<LogResource>>(
       `/api/vehicles/${encodeURIComponent(vehicleId)}/logs`,
     );
+  }
+
+  /** `PATCH /api/logs/:id` (tuner, operator): the log's kind and the revision its ECU ran. */
+  change(id: string, body: UpdateLogRequest): Observable<LogResource> {
+    return this.http.patch<LogResource>(`/api/logs/${encodeURIComponent(id)}`, body);
+  }
+
+  /** `DELETE /api/logs/:id` (tuner, admin): the log, its channels and its stored file. */
+  remove(id: string): Observable<void> {
+    return this.http.delete<void>(`/api/logs/${encodeURIComponent(id)}`);
   }
 
   /** `GET /api/logs/:id`: the log with its parse state, channel summary and parse report. */

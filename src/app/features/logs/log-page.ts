@@ -4,13 +4,14 @@ import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import { switchMap, takeWhile, timer } from 'rxjs';
 import { apiErrorMessage, isHttpStatus } from '../../core/api/api-error';
 import { LogsApi } from '../../core/api/logs-api';
 import { VehiclesApi } from '../../core/api/vehicles-api';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
 import { displaySummaryRows, mappingRows, summaryRows } from './log-rows';
+import { LogFactsEditor } from './log-facts/log-facts-editor';
 import { LogSeriesChart } from './log-series-chart';
 import {
   beyondTableText,
@@ -43,6 +44,7 @@ const SHOWN_PROBLEMS = 20;
     MatIconModule,
     MatProgressBarModule,
     LogSeriesChart,
+    LogFactsEditor,
   ],
   templateUrl: './log-page.html',
   styleUrl: './log-page.scss',
@@ -51,6 +53,7 @@ export class LogPage {
   private readonly logsApi = inject(LogsApi);
   private readonly vehiclesApi = inject(VehiclesApi);
   private readonly preferences = inject(DisplayPreferences);
+  private readonly router = inject(Router);
 
   /** The log's id, from the route. */
   readonly id = input.required<string>();
@@ -119,6 +122,11 @@ export class LogPage {
       ? (this.log.value().parseReport?.problems ?? []).slice(0, SHOWN_PROBLEMS)
       : [],
   );
+
+  /** Back to the logs list (the log is gone). */
+  protected leave(): void {
+    void this.router.navigate(['/logs']);
+  }
 
   /** The chip text of a log. */
   protected readonly statusLabel = statusLabel;
