@@ -19,7 +19,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import type { ColumnMappingInput, LogKind, LogResource } from '@shared/contracts/logs';
 import type { Vehicle } from '@shared/contracts/vehicles';
-import { forkJoin, map, of, switchMap, takeWhile, timer, type Observable } from 'rxjs';
+import { map, of, switchMap, takeWhile, timer, type Observable } from 'rxjs';
 import { LogsApi } from '../../core/api/logs-api';
 import { TablesApi } from '../../core/api/tables-api';
 import { DisplayPreferences } from '../../core/preferences/display-preferences';
@@ -34,7 +34,8 @@ import {
   uploadFailure,
   type UploadFailure,
 } from './log-text';
-import { revisionGroups, type RevisionGroup } from './upload-target';
+import { revisionGroupsOf } from './revision-groups-of';
+import type { RevisionGroup } from './upload-target';
 
 /** How often a log being parsed is asked about, in milliseconds. */
 const POLL_MS = 500;
@@ -268,20 +269,7 @@ export class LogUpload {
 
   /** A vehicle's tables with their revisions, as select groups. */
   private revisionGroupsOf(vehicleId: string): Observable<RevisionGroup[]> {
-    return this.tablesApi.listForVehicle(vehicleId).pipe(
-      switchMap(({ items }) =>
-        items.length === 0
-          ? of([])
-          : forkJoin(
-              items.map((table) =>
-                this.tablesApi
-                  .revisions(table.id)
-                  .pipe(map((res) => ({ table, revisions: res.items }))),
-              ),
-            ),
-      ),
-      map(revisionGroups),
-    );
+    return revisionGroupsOf(this.tablesApi, vehicleId);
   }
 
   /** Keeps a chosen file and forgets the last outcome. */

@@ -15,13 +15,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
 import { hasAnyRole } from '@shared/auth/access';
 import type { LogKind, LogResource } from '@shared/contracts/logs';
-import { forkJoin, map, of, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../../../core/api/api-error';
 import { LogsApi } from '../../../core/api/logs-api';
 import { TablesApi } from '../../../core/api/tables-api';
 import { Session } from '../../../core/auth/session';
 import { Notifier } from '../../../core/notify/notifier';
-import { revisionGroups } from '../upload-target';
+import { revisionGroupsOf } from '../revision-groups-of';
 
 /**
  * What can be put right after an upload: the log's kind and the revision its ECU ran (a log
@@ -67,21 +66,7 @@ export class LogFactsEditor {
   /** The vehicle's tables with their revisions, for the revision select. */
   protected readonly revisions = rxResource({
     params: () => this.log().vehicleId,
-    stream: ({ params }) =>
-      this.tablesApi.listForVehicle(params).pipe(
-        switchMap(({ items }) =>
-          items.length === 0
-            ? of([])
-            : forkJoin(
-                items.map((table) =>
-                  this.tablesApi
-                    .revisions(table.id)
-                    .pipe(map((res) => ({ table, revisions: res.items }))),
-                ),
-              ),
-        ),
-        map(revisionGroups),
-      ),
+    stream: ({ params }) => revisionGroupsOf(this.tablesApi, params),
     defaultValue: [],
   });
 
